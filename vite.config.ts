@@ -1,0 +1,17 @@
+import { sveltekit } from '@sveltejs/kit/vite';
+import tailwindcss from '@tailwindcss/vite';
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+	plugins: [tailwindcss(), sveltekit()],
+	server: { host: '127.0.0.1' },
+	preview: { host: '127.0.0.1' },
+	test: {
+		include: ['src/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/integration/**/*.test.ts'],
+		globalSetup: ['tests/global-setup.ts'],
+		testTimeout: 30_000,
+		hookTimeout: 60_000,
+		fileParallelism: false,
+		benchmark: { include: ['src/**/*.bench.ts', 'tests/bench/**/*.bench.ts'] }
+	}
+});
