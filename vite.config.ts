@@ -7,11 +7,28 @@ export default defineConfig({
 	server: { host: '127.0.0.1' },
 	preview: { host: '127.0.0.1' },
 	test: {
-		include: ['src/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/integration/**/*.test.ts'],
-		globalSetup: ['tests/global-setup.ts'],
 		testTimeout: 30_000,
 		hookTimeout: 60_000,
-		fileParallelism: false,
-		benchmark: { include: ['src/**/*.bench.ts', 'tests/bench/**/*.bench.ts'] }
+		benchmark: { include: ['src/**/*.bench.ts', 'tests/bench/**/*.bench.ts'] },
+		projects: [
+			{
+				extends: true,
+				test: {
+					name: 'unit',
+					include: ['src/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+					environment: 'node'
+				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'integration',
+					include: ['tests/integration/**/*.test.ts'],
+					environment: 'node',
+					globalSetup: ['tests/integration/global-setup.ts'],
+					fileParallelism: false
+				}
+			}
+		]
 	}
 });

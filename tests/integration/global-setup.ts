@@ -1,0 +1,27 @@
+// Integration tests run against the project's own test PostgreSQL cluster (never one already
+// running elsewhere): start it (idempotent), migrate, and hand the URL to the test workers.
+import { execFileSync } from 'node:child_process';
+import type { TestProject } from 'vitest/node';
+import { dbCreate } from '../../src/lib/server/db/index';
+import { migrateToLatest } from '../../src/lib/server/db/migrator';
+
+export default async function setup(project: TestProject) {
+	const out = execFileSync('bash', ['-c', 'source scripts/lib.sh && pg_start test >&2 && printf %s "$DATABASE_URL"'], {
+		encoding: 'utf8'
+	});
+	const url = out.trim();
+	process.env.DATABASE_URL = url;
+	project.provide('databaseUrl', url);
+	const db = dbCreate(url, 1);
+	try {
+		await migrateToLatest(db);
+	} finally {
+		await db.destroy();
+	}
+}
+
+declare module 'vitest' {
+	export interface ProvidedContext {
+		databaseUrl: string;
+	}
+}
