@@ -28,6 +28,17 @@ export default defineConfig({
 					globalSetup: ['tests/integration/global-setup.ts'],
 					fileParallelism: false
 				}
+			},
+			{
+				extends: true,
+				test: {
+					name: 'browser',
+					include: ['tests/browser/**/*.test.ts'],
+					environment: 'node',
+					globalSetup: ['tests/browser/global-setup.ts'],
+					fileParallelism: false,
+					testTimeout: 60_000
+				}
 			}
 		]
 	}

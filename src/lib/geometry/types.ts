@@ -44,3 +44,17 @@ export interface BoundingBox {
 	readonly maxX: number;
 	readonly maxY: number;
 }
+
+/** A place on an outline or path: segment index and curve parameter t ∈ [0,1] on that segment. */
+export interface SegmentLocation {
+	readonly segmentIndex: number;
+	readonly t: number;
+}
+
+/** A place on an outline or path together with the point there. */
+export interface PointOnPath extends SegmentLocation {
+	readonly point: Vec;
+}
+
+/** Anything made of segments in order: an Outline (closed) or a Path (open). */
+export type SegmentChain = Outline | Path;

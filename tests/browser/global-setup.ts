@@ -1,0 +1,72 @@
+// Browser tests drive Debian's Chromium against the BUILT app (`vite build` runs first), served on a
+// loopback port with the test database and the project's fake SMTP server with its inbox page.
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
+import type { TestProject } from 'vitest/node';
+
+async function freePort(): Promise<number> {
+	return new Promise((resolve, reject) => {
+		const srv = createServer();
+		srv.listen(0, '127.0.0.1', () => {
+			const addr = srv.address();
+			srv.close(() => (typeof addr === 'object' && addr ? resolve(addr.port) : reject(new Error('no port'))));
+		});
+	});
+}
+
+async function waitFor(url: string, child: ChildProcess, ms = 30_000) {
+	const until = Date.now() + ms;
+	while (Date.now() < until) {
+		if (child.exitCode !== null) throw new Error(`${url}: process exited with ${child.exitCode}`);
+		try {
+			const r = await fetch(url);
+			if (r.status < 500) return;
+		} catch {
+			/* not up yet */
+		}
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	throw new Error(`${url} did not answer within ${ms} ms`);
+}
+
+export default async function setup(project: TestProject) {
+	const databaseUrl = execFileSync('bash', ['-c', 'source scripts/lib.sh && pg_start test >&2 && printf %s "$DATABASE_URL"'], {
+		encoding: 'utf8'
+	}).trim();
+	const [appPort, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
+	const env = { ...process.env, DATABASE_URL: databaseUrl };
+	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
+		env: { ...env, MAIL_DEV_SMTP_PORT: String(smtpPort), MAIL_DEV_HTTP_PORT: String(inboxPort) },
+		stdio: ['ignore', 'inherit', 'inherit']
+	});
+	const app = spawn('node', ['build'], {
+		env: {
+			...env,
+			HOST: '127.0.0.1',
+			PORT: String(appPort),
+			SMTP_HOST: '127.0.0.1',
+			SMTP_PORT: String(smtpPort),
+			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>'
+		},
+		stdio: ['ignore', 'inherit', 'inherit']
+	});
+	const baseUrl = `http://127.0.0.1:${appPort}`;
+	const inboxUrl = `http://127.0.0.1:${inboxPort}`;
+	await waitFor(baseUrl, app);
+	await waitFor(inboxUrl, mail);
+	project.provide('baseUrl', baseUrl);
+	project.provide('inboxUrl', inboxUrl);
+	project.provide('databaseUrl', databaseUrl);
+	return async () => {
+		app.kill('SIGTERM');
+		mail.kill('SIGTERM');
+	};
+}
+
+declare module 'vitest' {
+	export interface ProvidedContext {
+		baseUrl: string;
+		inboxUrl: string;
+		databaseUrl: string;
+	}
+}
