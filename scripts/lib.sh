@@ -55,11 +55,13 @@ pg_settings() {
 	case "$name" in
 		dev) PG_PORT="${DARTELIER_PG_PORT:-54329}" ;;
 		test) PG_PORT="${DARTELIER_TEST_PG_PORT:-54339}" ;;
-		*) die "unknown cluster '$name' (dev or test)" ;;
+		scratch) PG_PORT="${DARTELIER_SCRATCH_PG_PORT:-54349}" ;; # the start script's own tests
+		*) die "unknown cluster '$name' (dev, test or scratch)" ;;
 	esac
 	PG_NAME="$name"
 	PG_DB="dartelier"
 	[ "$name" = "test" ] && PG_DB="dartelier_test"
+	[ "$name" = "scratch" ] && PG_DB="dartelier_scratch"
 	PG_USER="dartelier"
 	PG_PASSWORD="dartelier-local-only"
 	PG_DATA="$ROOT/.pgdata/$name"
@@ -140,7 +142,7 @@ pg_start() {
 	[ -f "$PG_DATA/postmaster.pid" ] && pg_clear_stale
 	local bin; bin="$(pg_bin_dir)"
 	local opts="-c listen_addresses=127.0.0.1 -p $PG_PORT -c unix_socket_directories=$PG_DATA"
-	if [ "$PG_NAME" = "test" ]; then
+	if [ "$PG_NAME" != "dev" ]; then
 		opts="$opts -c fsync=off -c synchronous_commit=off -c full_page_writes=off"
 	fi
 	local log="$PG_DATA/server.log" attempt
