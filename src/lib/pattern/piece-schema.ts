@@ -1,0 +1,172 @@
+import { z } from 'zod';
+
+/**
+ * The piece model, as one zod schema shared by browser and server.
+ * Units: millimetres, y pointing down, angles in radians. See README.md for the dart representation
+ * (block darts: the wedge is cut out of the outline, legs run to the apex).
+ */
+
+const finite = () =>
+	z.number().refine((n) => Number.isFinite(n), { message: 'must be a finite number' });
+
+export const vecSchema = z.object({ x: finite(), y: finite() });
+
+export const lineSegmentSchema = z.object({
+	kind: z.literal('line'),
+	p0: vecSchema,
+	p1: vecSchema
+});
+
+export const cubicSegmentSchema = z.object({
+	kind: z.literal('cubic'),
+	p0: vecSchema,
+	p1: vecSchema,
+	p2: vecSchema,
+	p3: vecSchema
+});
+
+export const segmentSchema = z.discriminatedUnion('kind', [lineSegmentSchema, cubicSegmentSchema]);
+
+/** Closed net stitching line. */
+export const outlineSchema = z.object({ segments: z.array(segmentSchema).min(2) });
+
+/** Open path (internal lines, cap edges). */
+export const pathSchema = z.object({ segments: z.array(segmentSchema).min(1) });
+
+const idSchema = z.string().min(1).max(64);
+
+/** Two points: a drawn straight line (fold line, placement line, arrow). */
+export const lineMarkSchema = z.object({ from: vecSchema, to: vecSchema });
+
+export const apexKindSchema = z.enum(['bust_point', 'dart_pivot', 'divergence']);
+
+/** An apex: the point darts and pleats pivot about (bust point, back dart pivot, panel divergence). */
+export const apexSchema = z.object({
+	id: idSchema,
+	kind: apexKindSchema,
+	label: z.string().max(80).default(''),
+	point: vecSchema
+});
+
+export const legSideSchema = z.enum(['leg1', 'leg2']);
+
+/**
+ * A dart. Its wedge is cut out of the outline: the outline runs … → leg1End → apex → leg2End → …
+ * (leg1 comes before the apex in outline order). `movingLeg` is the side whose chain rotates in a
+ * pivot (primer §1: "the chain from the moving leg L2 to S").
+ */
+export const dartSchema = z.object({
+	id: idSchema,
+	apexId: idSchema,
+	leg1End: vecSchema,
+	leg2End: vecSchema,
+	movingLeg: legSideSchema.default('leg2'),
+	/** Side the sewn dart is pressed toward. */
+	pressToward: legSideSchema.optional(),
+	/** Sewn point pulled back from the apex along the bisector (primer §4). */
+	pullBack: z
+		.object({ clearanceMm: finite(), sewnPoint: vecSchema, sewnLegLengthMm: finite(), sewnAngleRad: finite() })
+		.optional(),
+	/** Trued cap across the dart mouth (primer §5): edges from leg1End to the peak to leg2End. */
+	cap: z
+		.object({ pressToward: legSideSchema, peak: vecSchema, edges: pathSchema })
+		.optional()
+});
+
+export const pleatKindSchema = z.enum(['pleat', 'tuck']);
+
+/**
+ * A pleat or tuck opened at a seam: like a dart its opening is cut out of the outline
+ * (… → leg1End → [pivot1] → apex → [pivot2] → leg2End → …). The two edges of the opening are the
+ * fold line and the placement line; the fold is laid onto the placement line.
+ */
+export const pleatSchema = z.object({
+	id: idSchema,
+	apexId: idSchema,
+	kind: pleatKindSchema,
+	leg1End: vecSchema,
+	leg2End: vecSchema,
+	/** Substitute pivots (parallel pleats), on a small circle round the apex. */
+	pivot1: vecSchema.optional(),
+	pivot2: vecSchema.optional(),
+	foldLine: lineMarkSchema,
+	placementLine: lineMarkSchema,
+	/** Side the fold is laid toward (= the placement line's side). */
+	foldToward: legSideSchema,
+	/** Arrow drawn on the piece: from the fold line toward the placement line, at the seam. */
+	foldArrow: lineMarkSchema,
+	intakeMm: finite(),
+	depthMm: finite(),
+	/** Tucks: length stitched from the seam before release. */
+	stitchLengthMm: finite().optional()
+});
+
+export const notchSchema = z.object({
+	id: idSchema,
+	at: vecSchema,
+	count: z.union([z.literal(1), z.literal(2)]).default(1)
+});
+
+export const grainlineSchema = z.object({
+	from: vecSchema,
+	to: vecSchema,
+	arrowheads: z.enum(['both', 'one'])
+});
+
+export const internalLineSchema = z.object({
+	id: idSchema,
+	path: pathSchema,
+	label: z.string().max(80).default('')
+});
+
+export const drillHoleSchema = z.object({
+	id: idSchema,
+	at: vecSchema,
+	diameterMm: finite().default(3)
+});
+
+export const labelSchema = z.object({
+	id: idSchema,
+	text: z.string().max(200),
+	at: vecSchema,
+	angleRad: finite().default(0)
+});
+
+export const cutInstructionSchema = z.enum(['pair', 'single', 'on_fold']);
+
+export const pieceSchema = z.object({
+	schemaVersion: z.literal(1),
+	id: idSchema,
+	name: z.string().min(1).max(120),
+	outline: outlineSchema,
+	apexes: z.array(apexSchema).default([]),
+	darts: z.array(dartSchema).default([]),
+	pleats: z.array(pleatSchema).default([]),
+	notches: z.array(notchSchema).default([]),
+	grainline: grainlineSchema.nullable().default(null),
+	foldLine: lineMarkSchema.nullable().default(null),
+	internalLines: z.array(internalLineSchema).default([]),
+	drillHoles: z.array(drillHoleSchema).default([]),
+	labels: z.array(labelSchema).default([]),
+	cut: cutInstructionSchema,
+	fabric: z.string().max(120).default('self')
+});
+
+export type VecData = z.infer<typeof vecSchema>;
+export type ApexKind = z.infer<typeof apexKindSchema>;
+export type Apex = z.infer<typeof apexSchema>;
+export type LegSide = z.infer<typeof legSideSchema>;
+export type Dart = z.infer<typeof dartSchema>;
+export type PleatKind = z.infer<typeof pleatKindSchema>;
+export type Pleat = z.infer<typeof pleatSchema>;
+export type Notch = z.infer<typeof notchSchema>;
+export type Grainline = z.infer<typeof grainlineSchema>;
+export type LineMark = z.infer<typeof lineMarkSchema>;
+export type InternalLine = z.infer<typeof internalLineSchema>;
+export type DrillHole = z.infer<typeof drillHoleSchema>;
+export type PieceLabel = z.infer<typeof labelSchema>;
+export type CutInstruction = z.infer<typeof cutInstructionSchema>;
+/** A piece after parsing (defaults filled). */
+export type Piece = z.infer<typeof pieceSchema>;
+/** A piece as accepted by the parser (defaults optional). */
+export type PieceInput = z.input<typeof pieceSchema>;
