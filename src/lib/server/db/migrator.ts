@@ -23,7 +23,7 @@ export function migrationsFolder(root = process.cwd()): string {
 }
 
 function migrator(db: Kysely<any>, folder: string): Migrator {
-	return new Migrator({ db, provider: new FolderMigrationProvider(folder) });
+	return new Migrator({ db, provider: new FolderMigrationProvider(folder), allowUnorderedMigrations: true });
 }
 
 function unwrap(set: MigrationResultSet): string[] {

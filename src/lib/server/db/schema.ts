@@ -54,6 +54,80 @@ export interface PasswordResetsTable {
 	created_at: CreatedAt;
 }
 
+export type VersionState = 'draft' | 'proposed' | 'signed_off' | 'superseded';
+export type StyleStatus = 'in_work' | 'in_review' | 'signed_off' | 'archived';
+type Json = ColumnType<unknown, string, string>;
+
+export interface MeasurementSetsTable {
+	id: Generated<string>;
+	studio_id: string;
+	name: string;
+	kind: 'chart' | 'client';
+	source: Generated<string>;
+	client_ref: Generated<string>;
+	notes: Generated<string>;
+	unit: Generated<'mm' | 'cm' | 'in'>;
+	read_only: Generated<boolean>;
+	values: Json;
+	created_by: string | null;
+	created_at: CreatedAt;
+}
+
+export interface StylesTable {
+	id: Generated<string>;
+	studio_id: string;
+	name: string;
+	code: Generated<string>;
+	season: Generated<string>;
+	notes: Generated<string>;
+	measurement_set_id: string | null;
+	status: Generated<StyleStatus>;
+	created_by: string | null;
+	created_at: CreatedAt;
+}
+
+export interface PiecesTable {
+	id: Generated<string>;
+	style_id: string;
+	name: string;
+	cut: 'pair' | 'single' | 'on_fold';
+	fabric: Generated<string>;
+	sort_order: Generated<number>;
+	head_version_id: string | null;
+	head_number: Generated<number>;
+	created_at: CreatedAt;
+}
+
+export interface PieceVersionsTable {
+	id: Generated<string>;
+	piece_id: string;
+	number: number;
+	parent_id: string | null;
+	author_id: string | null;
+	message: string;
+	geometry: Json;
+	recipe: Json;
+	metrics: Json;
+	checks: Json;
+	state: Generated<VersionState>;
+	signed_off_by: string | null;
+	signed_off_at: Date | null;
+	created_at: CreatedAt;
+}
+
+export interface SeamPairsTable {
+	id: Generated<string>;
+	style_id: string;
+	label: Generated<string>;
+	a_piece_id: string;
+	a_edge: Json;
+	b_piece_id: string;
+	b_edge: Json;
+	allowed_ease_mm: Generated<number>;
+	tolerance_mm: Generated<number>;
+	created_at: CreatedAt;
+}
+
 export interface Database {
 	users: UsersTable;
 	sessions: SessionsTable;
@@ -61,4 +135,9 @@ export interface Database {
 	memberships: MembershipsTable;
 	invitations: InvitationsTable;
 	password_resets: PasswordResetsTable;
+	measurement_sets: MeasurementSetsTable;
+	styles: StylesTable;
+	pieces: PiecesTable;
+	piece_versions: PieceVersionsTable;
+	seam_pairs: SeamPairsTable;
 }
