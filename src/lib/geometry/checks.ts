@@ -1,0 +1,105 @@
+import type { Outline, Vec } from './types';
+import { outlineSelfIntersections } from './intersect';
+import { segmentLength } from './segment-length';
+import { segmentControlPoints, segmentEnd } from './segment';
+import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM, MIN_SEGMENT_LENGTH_MM } from './tolerance';
+
+/** Checks of an outline. They never throw: each returns a list of problems (empty = fine). */
+
+export type OutlineProblemCode = 'empty' | 'not-finite' | 'not-closed' | 'segment-too-short' | 'self-intersection';
+
+export interface OutlineProblem {
+	readonly code: OutlineProblemCode;
+	readonly message: string;
+	readonly segmentIndex?: number;
+	readonly point?: Vec;
+}
+
+export interface OutlineTolerances {
+	/** Largest allowed gap between one segment's end and the next one's start (mm). */
+	readonly closure?: number;
+	/** Shortest allowed segment (mm). */
+	readonly minSegmentLength?: number;
+	/** Accuracy of the intersection search (mm). */
+	readonly intersection?: number;
+}
+
+const fmt = (mm: number): string => (mm >= 0.1 ? `${mm.toFixed(1)} mm` : `${mm.toPrecision(2)} mm`);
+const at = (p: Vec): string => `(${p.x.toFixed(1)}, ${p.y.toFixed(1)}) mm`;
+
+/** Segments with a NaN or infinite coordinate. */
+export function outlineNonFiniteProblems(outline: Outline): OutlineProblem[] {
+	const out: OutlineProblem[] = [];
+	outline.segments.forEach((s, i) => {
+		if (segmentControlPoints(s).some((p) => !Number.isFinite(p.x) || !Number.isFinite(p.y))) {
+			out.push({ code: 'not-finite', segmentIndex: i, message: `Segment ${i + 1} has a point with a missing or infinite coordinate.` });
+		}
+	});
+	return out;
+}
+
+/** Gaps between consecutive segments (and from the last back to the first) larger than the tolerance. */
+export function outlineClosureProblems(outline: Outline, tolerance = CLOSURE_TOLERANCE_MM): OutlineProblem[] {
+	const segs = outline.segments;
+	const out: OutlineProblem[] = [];
+	for (let i = 0; i < segs.length; i++) {
+		const end = segmentEnd(segs[i]);
+		const next = segs[(i + 1) % segs.length].p0;
+		const gap = Math.hypot(end.x - next.x, end.y - next.y);
+		if (!(gap <= tolerance) && Number.isFinite(gap)) {
+			const which = i + 1 === segs.length ? 'the outline does not close: the last segment ends' : `segment ${i + 1} ends`;
+			out.push({
+				code: 'not-closed',
+				segmentIndex: i,
+				point: end,
+				message: `The outline has a gap: ${which} ${fmt(gap)} away from where ${i + 1 === segs.length ? 'the first segment starts' : `segment ${i + 2} starts`}, at ${at(end)}.`
+			});
+		}
+	}
+	return out;
+}
+
+/** Segments shorter than the minimum length. */
+export function outlineShortSegmentProblems(outline: Outline, minLength = MIN_SEGMENT_LENGTH_MM): OutlineProblem[] {
+	const out: OutlineProblem[] = [];
+	outline.segments.forEach((s, i) => {
+		const l = segmentLength(s);
+		if (l < minLength) {
+			out.push({
+				code: 'segment-too-short',
+				segmentIndex: i,
+				point: s.p0,
+				message: `Segment ${i + 1} at ${at(s.p0)} is only ${fmt(l)} long (shorter than ${fmt(minLength)}); remove it or merge it with its neighbour.`
+			});
+		}
+	});
+	return out;
+}
+
+/** Places where the outline crosses or touches itself. */
+export function outlineSelfIntersectionProblems(outline: Outline, tolerance = INTERSECTION_TOLERANCE_MM): OutlineProblem[] {
+	return outlineSelfIntersections(outline, true, tolerance).map((h) => ({
+		code: 'self-intersection' as const,
+		segmentIndex: h.segmentIndex,
+		point: h.point,
+		message:
+			h.segmentIndex === h.otherSegmentIndex
+				? `Segment ${h.segmentIndex + 1} loops over itself at ${at(h.point)}.`
+				: `The outline crosses itself at ${at(h.point)} (segments ${h.segmentIndex + 1} and ${h.otherSegmentIndex + 1}).`
+	}));
+}
+
+/**
+ * Every problem of an outline: empty, non-finite coordinates, not closed, too-short segments,
+ * self-intersections. Never throws. Non-finite outlines are not checked further.
+ */
+export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}): OutlineProblem[] {
+	if (outline.segments.length === 0) return [{ code: 'empty', message: 'The outline has no segments.' }];
+	const nonFinite = outlineNonFiniteProblems(outline);
+	if (nonFinite.length > 0) return nonFinite;
+	return [
+		...outlineClosureProblems(outline, tolerances.closure ?? CLOSURE_TOLERANCE_MM),
+		...outlineShortSegmentProblems(outline, tolerances.minSegmentLength ?? MIN_SEGMENT_LENGTH_MM),
+		...outlineSelfIntersectionProblems(outline, tolerances.intersection ?? INTERSECTION_TOLERANCE_MM)
+	];
+}
