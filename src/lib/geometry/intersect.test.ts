@@ -1,0 +1,142 @@
+import Flatten from '@flatten-js/core';
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+	outlineLineIntersections,
+	outlinePolylineIntersections,
+	outlineRayIntersections,
+	outlineSegmentIntersections,
+	outlineSelfIntersections,
+	pathIntersections,
+	segmentIntersections,
+	segmentLineIntersections,
+	segmentSelfIntersection
+} from './intersect';
+import { outlineFromPolyline, pathFromPolyline } from './path';
+import { segmentPointAt } from './segment';
+import type { CubicSegment, Segment } from './types';
+import { vecDistance } from './vec';
+import { bezierCircle, starPolygon } from './test-support/arbitraries';
+
+describe('line against outline', () => {
+	const square = outlineFromPolyline([{ x: 0, y: 0 }, { x: 100, y: 0 }, { x: 100, y: 100 }, { x: 0, y: 100 }]);
+
+	it('infinite line through a square meets it twice, sorted along the line', () => {
+		const hits = outlineLineIntersections(square, { x: -50, y: 30 }, { x: 1, y: 0 });
+		expect(hits.map((h) => h.u)).toEqual([50, 150]);
+		expect(hits.map((h) => h.segmentIndex)).toEqual([3, 1]);
+		expect(hits[0].point).toEqual({ x: 0, y: 30 });
+	});
+
+	it('a crossing through a vertex is reported once', () => {
+		const hits = outlineLineIntersections(square, { x: -10, y: -10 }, { x: 1, y: 1 });
+		expect(hits.length).toBe(2);
+		expect(hits.map((h) => [h.segmentIndex, h.t])).toEqual([[0, 0], [2, 0]]);
+	});
+
+	it('ray and segment queries keep only their part of the line', () => {
+		expect(outlineRayIntersections(square, { x: 50, y: 50 }, { x: 0, y: -1 }).map((h) => h.point)).toEqual([{ x: 50, y: 0 }]);
+		expect(outlineSegmentIntersections(square, { x: 50, y: 50 }, { x: 50, y: 150 }).map((h) => h.u)).toEqual([0.5]);
+		expect(outlineSegmentIntersections(square, { x: 10, y: 10 }, { x: 20, y: 20 })).toEqual([]);
+	});
+
+	it('line against a circle of cubics: exact points lie on both the line and the curve', () => {
+		const c = bezierCircle({ x: 0, y: 0 }, 100);
+		fc.assert(
+			fc.property(fc.double({ min: -95, max: 95, noNaN: true }), fc.double({ min: 0, max: Math.PI, noNaN: true }), (off, ang) => {
+				const dir = { x: Math.cos(ang), y: Math.sin(ang) };
+				const origin = { x: -dir.y * off, y: dir.x * off };
+				const hits = outlineLineIntersections(c, origin, dir);
+				expect(hits.length).toBe(2);
+				for (const h of hits) {
+					expect(vecDistance(h.point, segmentPointAt(c.segments[h.segmentIndex], h.t))).toBeLessThan(1e-9);
+					expect(vecDistance(h.point, { x: origin.x + dir.x * h.u, y: origin.y + dir.y * h.u })).toBeLessThan(1e-8);
+				}
+			})
+		);
+	});
+
+	it('a line tangent to a cubic is found once (double root)', () => {
+		const c: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 0 }, p1: { x: 0, y: 40 }, p2: { x: 100, y: 40 }, p3: { x: 100, y: 0 } };
+		const hits = segmentLineIntersections(c, { x: 0, y: 30 }, { x: 1, y: 0 });
+		expect(hits.length).toBe(1);
+		expect(hits[0].t).toBeCloseTo(0.5, 6);
+	});
+
+	// Reference library: @flatten-js/core 1.6.15, Polygon.intersect(Line) on random polygons.
+	it('agrees with @flatten-js/core on the number and places of line crossings of random polygons', () => {
+		for (let seed = 1; seed <= 40; seed++) {
+			const pts = starPolygon(5 + seed, seed * 104729);
+			const ang = seed * 0.37;
+			const origin = { x: Math.cos(seed) * 20, y: Math.sin(seed) * 20 };
+			const dir = { x: Math.cos(ang), y: Math.sin(ang) };
+			const ours = outlineLineIntersections(outlineFromPolyline(pts), origin, dir);
+			const poly = new Flatten.Polygon(pts.map((p) => [p.x, p.y] as [number, number]));
+			const line = new Flatten.Line(new Flatten.Point(origin.x, origin.y), new Flatten.Vector(-dir.y, dir.x));
+			const theirs = poly.intersect(line) as Flatten.Point[];
+			expect(ours.length).toBe(theirs.length);
+			for (const p of theirs) expect(Math.min(...ours.map((h) => vecDistance(h.point, p)))).toBeLessThan(1e-6);
+		}
+	});
+
+	it('polyline crossings carry the polyline edge index', () => {
+		const hits = outlinePolylineIntersections(square, [{ x: 50, y: -10 }, { x: 50, y: 50 }, { x: 150, y: 50 }]);
+		expect(hits.map((h) => [h.polylineIndex, h.segmentIndex])).toEqual([[0, 0], [1, 1]]);
+	});
+});
+
+describe('segment against segment', () => {
+	it('two crossing lines', () => {
+		const h = segmentIntersections({ kind: 'line', p0: { x: 0, y: 0 }, p1: { x: 10, y: 10 } }, { kind: 'line', p0: { x: 0, y: 10 }, p1: { x: 10, y: 0 } });
+		expect(h.length).toBe(1);
+		expect(h[0].point).toEqual({ x: 5, y: 5 });
+	});
+
+	it('two cubics crossing in several places: every hit lies on both curves', () => {
+		const a: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 0 }, p1: { x: 30, y: 200 }, p2: { x: 70, y: -200 }, p3: { x: 100, y: 0 } };
+		const b: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 10 }, p1: { x: 50, y: -20 }, p2: { x: 50, y: 20 }, p3: { x: 100, y: -10 } };
+		const hits = segmentIntersections(a, b);
+		expect(hits.length).toBe(3);
+		for (const h of hits) {
+			expect(vecDistance(segmentPointAt(a, h.ta), h.point)).toBeLessThan(1e-7);
+			expect(vecDistance(segmentPointAt(b, h.tb), h.point)).toBeLessThan(1e-7);
+		}
+	});
+
+	it('cubic–cubic agrees with line–cubic when one cubic is straight', () => {
+		const curve: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 0 }, p1: { x: 20, y: 90 }, p2: { x: 80, y: -90 }, p3: { x: 100, y: 0 } };
+		const straight: CubicSegment = { kind: 'cubic', p0: { x: -5, y: 3 }, p1: { x: 30, y: 3 }, p2: { x: 70, y: 3 }, p3: { x: 105, y: 3 } };
+		const asLine: Segment = { kind: 'line', p0: straight.p0, p1: straight.p3 };
+		const cc = segmentIntersections(curve, straight);
+		const cl = segmentIntersections(curve, asLine);
+		expect(cc.length).toBe(cl.length);
+		cc.forEach((h, i) => expect(vecDistance(h.point, cl[i].point)).toBeLessThan(1e-7));
+	});
+
+	it('finds the loop of a single looping cubic', () => {
+		const loop: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 0 }, p1: { x: 150, y: 100 }, p2: { x: -50, y: 100 }, p3: { x: 100, y: 0 } };
+		const h = segmentSelfIntersection(loop);
+		expect(h.length).toBe(1);
+		expect(vecDistance(segmentPointAt(loop, h[0].ta), segmentPointAt(loop, h[0].tb))).toBeLessThan(1e-9);
+		expect(segmentSelfIntersection({ ...loop, p1: { x: 30, y: 50 }, p2: { x: 70, y: 50 } })).toEqual([]);
+	});
+});
+
+describe('self-intersection', () => {
+	it('a simple outline (polygon or circle of cubics) does not cross itself', () => {
+		expect(outlineSelfIntersections(outlineFromPolyline(starPolygon(300, 9)))).toEqual([]);
+		expect(outlineSelfIntersections(bezierCircle({ x: 0, y: 0 }, 50))).toEqual([]);
+	});
+
+	it('a figure-eight crosses itself once, where the diagonals meet', () => {
+		const eight = outlineFromPolyline([{ x: 0, y: 0 }, { x: 100, y: 100 }, { x: 100, y: 0 }, { x: 0, y: 100 }]);
+		const hits = outlineSelfIntersections(eight);
+		expect(hits.length).toBe(1);
+		expect(vecDistance(hits[0].point, { x: 50, y: 50 })).toBeLessThan(1e-9);
+	});
+
+	it('path against path finds the crossing of two polylines', () => {
+		const hits = pathIntersections(pathFromPolyline([{ x: 0, y: 0 }, { x: 10, y: 0 }, { x: 10, y: 10 }]), pathFromPolyline([{ x: 5, y: 5 }, { x: 15, y: 5 }]));
+		expect(hits.map((h) => [h.segmentIndex, h.otherSegmentIndex, h.point.x, h.point.y])).toEqual([[1, 0, 10, 5]]);
+	});
+});
