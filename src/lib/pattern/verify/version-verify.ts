@@ -1,0 +1,96 @@
+import type { LedgerEntry, ShapingCheck } from '../ledger';
+import { shapingChecks } from '../ledger';
+import { pieceMetrics, type PieceMetrics } from '../metrics';
+import type { OperationResult } from '../operation-result';
+import { resultProblems } from '../operation-result';
+import type { Piece } from '../piece-schema';
+import { pieceGeometryDifference, REPLAY_TOLERANCE_MM } from './piece-compare';
+
+/** One step of a recipe as stored: an operation name and its parameters. */
+export interface RecipeStepData {
+	readonly op: string;
+	readonly params?: unknown;
+}
+
+export type ReplayStep = (piece: Piece, step: RecipeStepData) => OperationResult;
+
+export type VerifyProblemCode = 'invalid_geometry' | 'recipe_missing' | 'replay_refused' | 'replay_mismatch' | 'shaping_not_kept';
+
+export interface VerifyProblem {
+	readonly code: VerifyProblemCode;
+	readonly message: string;
+	readonly details?: readonly string[];
+}
+
+export type VersionVerdict =
+	| {
+			readonly ok: true;
+			/** The server's own piece: the replay's result (or the submitted origin for a first version). */
+			readonly piece: Piece;
+			readonly metrics: PieceMetrics;
+			readonly ledger: readonly LedgerEntry[];
+			readonly checks: readonly ShapingCheck[];
+	  }
+	| { readonly ok: false; readonly problem: VerifyProblem };
+
+/** Recipe steps that start a piece's history instead of transforming a parent. */
+export const ORIGIN_OPS = ['draft', 'import', 'separate_result'] as const;
+
+function fail(code: VerifyProblemCode, message: string, details?: readonly string[]): VersionVerdict {
+	return { ok: false, problem: { code, message, details } };
+}
+
+/**
+ * What the server does with a submitted version before storing it (pure, so the browser can run the
+ * same check before saving): the geometry must be sound; for a version with a parent, replaying the
+ * recipe on the parent must give the submitted geometry within 0.01 mm; and every shaping check must
+ * pass (each apex balanced or the change labelled, area outside the darts kept). Metrics come from the
+ * server's own computation, never from the client.
+ */
+export function versionVerify(
+	parent: Piece | null,
+	submitted: Piece,
+	recipe: readonly RecipeStepData[],
+	replay: ReplayStep
+): VersionVerdict {
+	const problems = resultProblems(submitted);
+	if (problems.length > 0) {
+		return fail('invalid_geometry', `The piece's geometry is not sound: ${problems.slice(0, 3).join(' ')}`, problems);
+	}
+	if (parent === null) {
+		const origin = recipe.length === 1 && (ORIGIN_OPS as readonly string[]).includes(recipe[0].op);
+		if (!origin) {
+			return fail('recipe_missing', `A first version must come from ${ORIGIN_OPS.join(', ')}, as a single recipe step.`);
+		}
+		return { ok: true, piece: submitted, metrics: pieceMetrics(submitted), ledger: [], checks: [] };
+	}
+	if (recipe.length === 0) {
+		return fail('recipe_missing', 'A new version must say which operations made it from its base version (the recipe is empty).');
+	}
+	let current = parent;
+	const ledger: LedgerEntry[] = [];
+	for (const [i, step] of recipe.entries()) {
+		const r = replay(current, step);
+		if (!r.ok) return fail('replay_refused', `Step ${i + 1} (${step.op}) cannot be replayed on the base version: ${r.error.message}`);
+		current = r.piece;
+		ledger.push(...r.ledgerEntries);
+	}
+	const diff = pieceGeometryDifference(submitted, current);
+	if (diff) {
+		const far = Number.isFinite(diff.distanceMm) ? ` (${diff.distanceMm.toFixed(3)} mm off, ${REPLAY_TOLERANCE_MM} mm allowed)` : '';
+		return fail(
+			'replay_mismatch',
+			`The submitted piece is not what its recipe gives: ${diff.where}${far}. Nothing was saved.`
+		);
+	}
+	const checks = shapingChecks(parent, current, ledger);
+	const failed = checks.filter((c) => !c.passed);
+	if (failed.length > 0) {
+		return fail(
+			'shaping_not_kept',
+			`Shaping is not kept: ${failed.map((c) => c.message).join(' ')}`,
+			failed.map((c) => c.message)
+		);
+	}
+	return { ok: true, piece: current, metrics: pieceMetrics(current), ledger, checks };
+}

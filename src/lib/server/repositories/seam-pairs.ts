@@ -1,0 +1,54 @@
+import type { DbOrTx } from '../db';
+
+/** One side of a seam: the stretch of a piece's stitching line from `from` to `to` (outline order). */
+export interface SeamEdge {
+	from: { x: number; y: number };
+	to: { x: number; y: number };
+}
+
+export interface SeamPairRow {
+	id: string;
+	styleId: string;
+	label: string;
+	aPieceId: string;
+	aEdge: SeamEdge;
+	bPieceId: string;
+	bEdge: SeamEdge;
+	allowedEaseMm: number;
+	toleranceMm: number;
+}
+
+const columns = [
+	'id',
+	'style_id as styleId',
+	'label',
+	'a_piece_id as aPieceId',
+	'a_edge as aEdge',
+	'b_piece_id as bPieceId',
+	'b_edge as bEdge',
+	'allowed_ease_mm as allowedEaseMm',
+	'tolerance_mm as toleranceMm'
+] as const;
+
+export async function seamPairsCreate(db: DbOrTx, p: Omit<SeamPairRow, 'id'>): Promise<SeamPairRow> {
+	return db
+		.insertInto('seam_pairs')
+		.values({
+			style_id: p.styleId,
+			label: p.label,
+			a_piece_id: p.aPieceId,
+			a_edge: JSON.stringify(p.aEdge),
+			b_piece_id: p.bPieceId,
+			b_edge: JSON.stringify(p.bEdge),
+			allowed_ease_mm: p.allowedEaseMm,
+			tolerance_mm: p.toleranceMm
+		})
+		.returning(columns)
+		.executeTakeFirstOrThrow() as Promise<SeamPairRow>;
+}
+
+export async function seamPairsOfStyle(db: DbOrTx, styleId: string): Promise<SeamPairRow[]> {
+	return db.selectFrom('seam_pairs').select(columns).where('style_id', '=', styleId).orderBy('created_at').execute() as Promise<
+		SeamPairRow[]
+	>;
+}

@@ -1,0 +1,120 @@
+import type { DbOrTx } from '../db';
+import type { VersionState } from '../db/schema';
+
+export interface VersionSummary {
+	id: string;
+	pieceId: string;
+	number: number;
+	parentId: string | null;
+	authorId: string | null;
+	authorName: string | null;
+	message: string;
+	state: VersionState;
+	createdAt: Date;
+	signedOffAt: Date | null;
+}
+
+export interface VersionRow extends VersionSummary {
+	geometry: unknown;
+	recipe: unknown;
+	metrics: unknown;
+	checks: unknown;
+}
+
+const summary = [
+	'piece_versions.id',
+	'piece_versions.piece_id as pieceId',
+	'piece_versions.number',
+	'piece_versions.parent_id as parentId',
+	'piece_versions.author_id as authorId',
+	'users.name as authorName',
+	'piece_versions.message',
+	'piece_versions.state',
+	'piece_versions.created_at as createdAt',
+	'piece_versions.signed_off_at as signedOffAt'
+] as const;
+const full = [
+	...summary,
+	'piece_versions.geometry',
+	'piece_versions.recipe',
+	'piece_versions.metrics',
+	'piece_versions.checks'
+] as const;
+
+export async function versionsInsert(
+	db: DbOrTx,
+	v: {
+		pieceId: string;
+		number: number;
+		parentId: string | null;
+		authorId: string;
+		message: string;
+		geometry: unknown;
+		recipe: unknown;
+		metrics: unknown;
+		checks: unknown;
+	}
+): Promise<{ id: string; number: number }> {
+	return db
+		.insertInto('piece_versions')
+		.values({
+			piece_id: v.pieceId,
+			number: v.number,
+			parent_id: v.parentId,
+			author_id: v.authorId,
+			message: v.message,
+			geometry: JSON.stringify(v.geometry),
+			recipe: JSON.stringify(v.recipe),
+			metrics: JSON.stringify(v.metrics),
+			checks: JSON.stringify(v.checks)
+		})
+		.returning(['id', 'number'])
+		.executeTakeFirstOrThrow();
+}
+
+export async function versionsOfPiece(db: DbOrTx, pieceId: string, onlySignedOff = false): Promise<VersionSummary[]> {
+	let q = db
+		.selectFrom('piece_versions')
+		.leftJoin('users', 'users.id', 'piece_versions.author_id')
+		.select(summary)
+		.where('piece_versions.piece_id', '=', pieceId);
+	if (onlySignedOff) q = q.where('piece_versions.state', '=', 'signed_off');
+	return q.orderBy('piece_versions.number', 'desc').execute();
+}
+
+export async function versionsById(db: DbOrTx, pieceId: string, versionId: string): Promise<VersionRow | undefined> {
+	return db
+		.selectFrom('piece_versions')
+		.leftJoin('users', 'users.id', 'piece_versions.author_id')
+		.select(full)
+		.where('piece_versions.id', '=', versionId)
+		.where('piece_versions.piece_id', '=', pieceId)
+		.executeTakeFirst();
+}
+
+export async function versionsStateSet(
+	db: DbOrTx,
+	versionId: string,
+	state: VersionState,
+	signedOffBy?: string
+): Promise<void> {
+	await db
+		.updateTable('piece_versions')
+		.set({
+			state,
+			...(state === 'signed_off' ? { signed_off_by: signedOffBy ?? null, signed_off_at: new Date() } : {})
+		})
+		.where('id', '=', versionId)
+		.execute();
+}
+
+/** When a version is signed off, earlier signed-off versions of the piece become superseded. */
+export async function versionsSupersedeOthers(db: DbOrTx, pieceId: string, keepId: string): Promise<void> {
+	await db
+		.updateTable('piece_versions')
+		.set({ state: 'superseded' })
+		.where('piece_id', '=', pieceId)
+		.where('id', '!=', keepId)
+		.where('state', '=', 'signed_off')
+		.execute();
+}
