@@ -23,3 +23,6 @@ export {
 export * from './intersect';
 export * from './point-in';
 export * from './checks';
+export * from './flatten';
+export * from './simplify';
+export * from './nearest';

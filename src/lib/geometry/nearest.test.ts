@@ -1,0 +1,40 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { outlineNearestPoint, segmentNearestPoint } from './nearest';
+import { outlineFromPolyline } from './path';
+import { segmentPointAt } from './segment';
+import type { CubicSegment } from './types';
+import { vecDistance } from './vec';
+import { arbPoint, bezierCircle } from './test-support/arbitraries';
+
+describe('nearest point', () => {
+	it('on a square: segment index, t, point and distance', () => {
+		const sq = outlineFromPolyline([{ x: 0, y: 0 }, { x: 100, y: 0 }, { x: 100, y: 100 }, { x: 0, y: 100 }]);
+		const r = outlineNearestPoint(sq, { x: 130, y: 25 });
+		expect(r).toEqual({ segmentIndex: 1, t: 0.25, point: { x: 100, y: 25 }, distance: 30 });
+	});
+
+	it('on a circle of cubics: distance is |r − |p − c|| within the Bézier-circle error', () => {
+		const c = bezierCircle({ x: 10, y: 20 }, 100);
+		fc.assert(
+			fc.property(arbPoint(300), (p) => {
+				const r = outlineNearestPoint(c, p);
+				expect(Math.abs(r.distance - Math.abs(vecDistance(p, { x: 10, y: 20 }) - 100))).toBeLessThan(0.03);
+				expect(vecDistance(r.point, segmentPointAt(c.segments[r.segmentIndex], r.t))).toBeLessThan(1e-9);
+			})
+		);
+	});
+
+	it('is never farther than a dense sample of the cubic', () => {
+		fc.assert(
+			fc.property(arbPoint(100), arbPoint(100), arbPoint(100), arbPoint(100), arbPoint(150), (p0, p1, p2, p3, q) => {
+				const c: CubicSegment = { kind: 'cubic', p0, p1, p2, p3 };
+				const r = segmentNearestPoint(c, q);
+				let dense = Infinity;
+				for (let k = 0; k <= 2000; k++) dense = Math.min(dense, vecDistance(segmentPointAt(c, k / 2000), q));
+				expect(r.distance).toBeLessThanOrEqual(dense + 1e-9);
+			}),
+			{ numRuns: 100 }
+		);
+	});
+});

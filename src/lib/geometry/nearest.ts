@@ -1,0 +1,85 @@
+import type { Segment, SegmentChain, Vec } from './types';
+import { segmentDerivativeAt, segmentPointAt, segmentSecondDerivativeAt } from './segment';
+
+/** Nearest point on a segment / outline / path to a given point. */
+
+export interface NearestPoint {
+	readonly segmentIndex: number;
+	readonly t: number;
+	readonly point: Vec;
+	readonly distance: number;
+}
+
+const SAMPLES = 24;
+
+/** Nearest point on one segment: {t, point, distance}. Cubics: sampling, then Newton on (B − p)·B' = 0. */
+export function segmentNearestPoint(s: Segment, p: Vec): { t: number; point: Vec; distance: number } {
+	if (s.kind === 'line') {
+		const dx = s.p1.x - s.p0.x, dy = s.p1.y - s.p0.y;
+		const l2 = dx * dx + dy * dy;
+		let t = l2 === 0 ? 0 : ((p.x - s.p0.x) * dx + (p.y - s.p0.y) * dy) / l2;
+		t = t < 0 ? 0 : t > 1 ? 1 : t;
+		const q = t === 0 ? s.p0 : t === 1 ? s.p1 : { x: s.p0.x + t * dx, y: s.p0.y + t * dy };
+		return { t, point: q, distance: Math.hypot(q.x - p.x, q.y - p.y) };
+	}
+	const d2 = new Array<number>(SAMPLES + 1);
+	for (let i = 0; i <= SAMPLES; i++) {
+		const q = segmentPointAt(s, i / SAMPLES);
+		d2[i] = (q.x - p.x) ** 2 + (q.y - p.y) ** 2;
+	}
+	let bestT = 0;
+	let bestD = d2[0];
+	if (d2[SAMPLES] < bestD) { bestD = d2[SAMPLES]; bestT = 1; }
+	for (let i = 0; i <= SAMPLES; i++) {
+		const isLocalMin = (i === 0 || d2[i] <= d2[i - 1]) && (i === SAMPLES || d2[i] <= d2[i + 1]);
+		if (!isLocalMin) continue;
+		const lo = Math.max(0, (i - 1) / SAMPLES);
+		const hi = Math.min(1, (i + 1) / SAMPLES);
+		let t = i / SAMPLES;
+		for (let k = 0; k < 30; k++) {
+			const q = segmentPointAt(s, t);
+			const d1 = segmentDerivativeAt(s, t);
+			const dd = segmentSecondDerivativeAt(s, t);
+			const ex = q.x - p.x, ey = q.y - p.y;
+			const f = ex * d1.x + ey * d1.y;
+			const fp = d1.x * d1.x + d1.y * d1.y + ex * dd.x + ey * dd.y;
+			if (fp <= 0) break;
+			let next = t - f / fp;
+			if (next < lo) next = lo;
+			if (next > hi) next = hi;
+			if (Math.abs(next - t) < 1e-14) { t = next; break; }
+			t = next;
+		}
+		const q = segmentPointAt(s, t);
+		const d = (q.x - p.x) ** 2 + (q.y - p.y) ** 2;
+		if (d < bestD) { bestD = d; bestT = t; }
+	}
+	const point = bestT === 0 ? s.p0 : bestT === 1 ? s.p3 : segmentPointAt(s, bestT);
+	return { t: bestT, point, distance: Math.sqrt(bestD) };
+}
+
+/** Nearest point on an outline or path (segment index, t, point, distance). Segments whose box is farther than the best so far are skipped. */
+export function pathNearestPoint(chain: SegmentChain, p: Vec): NearestPoint {
+	let best: NearestPoint = { segmentIndex: -1, t: 0, point: { x: NaN, y: NaN }, distance: Infinity };
+	const segs = chain.segments;
+	for (let i = 0; i < segs.length; i++) {
+		const s = segs[i];
+		// lower bound: distance to the control-point box
+		let minX: number, maxX: number, minY: number, maxY: number;
+		if (s.kind === 'line') {
+			minX = Math.min(s.p0.x, s.p1.x); maxX = Math.max(s.p0.x, s.p1.x);
+			minY = Math.min(s.p0.y, s.p1.y); maxY = Math.max(s.p0.y, s.p1.y);
+		} else {
+			minX = Math.min(s.p0.x, s.p1.x, s.p2.x, s.p3.x); maxX = Math.max(s.p0.x, s.p1.x, s.p2.x, s.p3.x);
+			minY = Math.min(s.p0.y, s.p1.y, s.p2.y, s.p3.y); maxY = Math.max(s.p0.y, s.p1.y, s.p2.y, s.p3.y);
+		}
+		const bx = p.x < minX ? minX - p.x : p.x > maxX ? p.x - maxX : 0;
+		const by = p.y < minY ? minY - p.y : p.y > maxY ? p.y - maxY : 0;
+		if (bx * bx + by * by > best.distance * best.distance) continue;
+		const r = segmentNearestPoint(s, p);
+		if (r.distance < best.distance) best = { segmentIndex: i, t: r.t, point: r.point, distance: r.distance };
+	}
+	return best;
+}
+
+export const outlineNearestPoint = pathNearestPoint;
