@@ -125,7 +125,15 @@ function lineHitsOnChain(
 				if (Math.max(s.p0.x, s.p1.x) < qMinX || Math.min(s.p0.x, s.p1.x) > qMaxX) continue;
 				if (Math.max(s.p0.y, s.p1.y) < qMinY || Math.min(s.p0.y, s.p1.y) > qMaxY) continue;
 			}
-		} else if (finite) {
+		} else {
+			const d0 = ux * (s.p0.y - oy) - uy * (s.p0.x - ox);
+			const d1 = ux * (s.p1.y - oy) - uy * (s.p1.x - ox);
+			const d2 = ux * (s.p2.y - oy) - uy * (s.p2.x - ox);
+			const d3 = ux * (s.p3.y - oy) - uy * (s.p3.x - ox);
+			if (d0 > tolerance && d1 > tolerance && d2 > tolerance && d3 > tolerance) continue;
+			if (d0 < -tolerance && d1 < -tolerance && d2 < -tolerance && d3 < -tolerance) continue;
+		}
+		if (finite && s.kind === 'cubic') {
 			if (Math.max(s.p0.x, s.p1.x, s.p2.x, s.p3.x) < qMinX || Math.min(s.p0.x, s.p1.x, s.p2.x, s.p3.x) > qMaxX) continue;
 			if (Math.max(s.p0.y, s.p1.y, s.p2.y, s.p3.y) < qMinY || Math.min(s.p0.y, s.p1.y, s.p2.y, s.p3.y) > qMaxY) continue;
 		}

@@ -1,0 +1,7 @@
+// Minimal types for bezier-js 6 (used only as a reference in tests; the package ships no types).
+declare module 'bezier-js' {
+	export class Bezier {
+		constructor(...coords: number[]);
+		length(): number;
+	}
+}
