@@ -3,5 +3,6 @@ declare module 'bezier-js' {
 	export class Bezier {
 		constructor(...coords: number[]);
 		length(): number;
+		bbox(): { x: { min: number; max: number }; y: { min: number; max: number } };
 	}
 }
