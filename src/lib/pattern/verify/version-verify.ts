@@ -1,5 +1,5 @@
 import type { LedgerEntry, ShapingCheck } from '../ledger';
-import { shapingChecks } from '../ledger';
+import { LABELLED_KINDS, shapingChecks } from '../ledger';
 import { pieceMetrics, type PieceMetrics } from '../metrics';
 import type { OperationResult } from '../operation-result';
 import { resultProblems } from '../operation-result';
@@ -44,15 +44,21 @@ function fail(code: VerifyProblemCode, message: string, details?: readonly strin
  * What the server does with a submitted version before storing it (pure, so the browser can run the
  * same check before saving): the geometry must be sound; for a version with a parent, replaying the
  * recipe on the parent must give the submitted geometry within 0.01 mm; and every shaping check must
- * pass (each apex balanced or the change labelled, area outside the darts kept). Metrics come from the
+ * pass (each apex balanced or the change declared as a labelled entry: added fullness, removed ease;
+ * area outside the darts kept or declared). Metrics come from the
  * server's own computation, never from the client.
  */
 export function versionVerify(
 	parent: Piece | null,
 	submitted: Piece,
 	recipe: readonly RecipeStepData[],
-	replay: ReplayStep
+	replay: ReplayStep,
+	declared: readonly LedgerEntry[] = []
 ): VersionVerdict {
+	const undeclarable = declared.find((e) => !(LABELLED_KINDS as readonly string[]).includes(e.kind));
+	if (undeclarable) {
+		return fail('shaping_not_kept', `Only labelled changes (${LABELLED_KINDS.join(', ')}) can be declared; "${undeclarable.kind}" entries come from operations.`);
+	}
 	const problems = resultProblems(submitted);
 	if (problems.length > 0) {
 		return fail('invalid_geometry', `The piece's geometry is not sound: ${problems.slice(0, 3).join(' ')}`, problems);
@@ -75,6 +81,7 @@ export function versionVerify(
 		current = r.piece;
 		ledger.push(...r.ledgerEntries);
 	}
+	ledger.push(...declared);
 	const diff = pieceGeometryDifference(submitted, current);
 	if (diff) {
 		const far = Number.isFinite(diff.distanceMm) ? ` (${diff.distanceMm.toFixed(3)} mm off, ${REPLAY_TOLERANCE_MM} mm allowed)` : '';

@@ -62,3 +62,7 @@ export async function piecesLockForSave(db: DbOrTx, pieceId: string): Promise<Pi
 export async function piecesHeadSet(db: DbOrTx, pieceId: string, versionId: string, number: number): Promise<void> {
 	await db.updateTable('pieces').set({ head_version_id: versionId, head_number: number }).where('id', '=', pieceId).execute();
 }
+
+export async function piecesDelete(db: DbOrTx, pieceId: string): Promise<void> {
+	await db.deleteFrom('pieces').where('id', '=', pieceId).execute();
+}

@@ -1,4 +1,5 @@
-import type { Db } from '../db';
+import type { Db, DbOrTx } from '../db';
+import type { LedgerEntry } from '$lib/pattern/ledger';
 import { pieceSchema, type Piece } from '$lib/pattern/piece-schema';
 import { versionVerify, type RecipeStepData, type VerifyProblem } from '$lib/pattern/verify/version-verify';
 import { seamPairMeasure, type SeamPairMeasure } from '$lib/pattern/verify/seam-measure';
@@ -15,6 +16,8 @@ export interface SaveInput {
 	message: string;
 	geometry: Piece;
 	recipe: RecipeStepData[];
+	/** Labelled changes declared by the pattern cutter (fullness, removed ease). */
+	declared?: LedgerEntry[];
 	authorId: string;
 }
 
@@ -43,7 +46,7 @@ function conflict(head: { id: string | null; number: number }): SaveOutcome {
 	};
 }
 
-async function seamWarnings(db: Db, styleId: string, pieceId: string, piece: Piece): Promise<SeamPairMeasure[]> {
+export async function seamWarnings(db: DbOrTx, styleId: string, pieceId: string, piece: Piece): Promise<SeamPairMeasure[]> {
 	const pairs = (await seamPairsOfStyle(db, styleId)).filter((p) => p.aPieceId === pieceId || p.bPieceId === pieceId);
 	if (pairs.length === 0) return [];
 	const heads = new Map<string, Piece>();
@@ -85,7 +88,7 @@ export async function versionSave(db: Db, input: SaveInput, hooks: SaveHooks = {
 		if (!base) return { ok: false, status: 404, message: 'The base version does not belong to this piece.' };
 		parent = pieceSchema.parse(base.geometry);
 	}
-	const verdict = versionVerify(parent, input.geometry, input.recipe, recipeReplayStep);
+	const verdict = versionVerify(parent, input.geometry, input.recipe, recipeReplayStep, input.declared ?? []);
 	if (!verdict.ok) return { ok: false, status: 422, problem: verdict.problem };
 	const warnings = await seamWarnings(db, piece.styleId, piece.id, verdict.piece);
 	const checks = [

@@ -1,0 +1,29 @@
+import { error } from '@sveltejs/kit';
+import { z } from 'zod';
+import { pieceSchema } from '$lib/pattern/piece-schema';
+import { ALL_ROLES, requireRole } from '$lib/server/authz';
+import { db } from '$lib/server/db';
+import { versionsOfPiece } from '$lib/server/repositories/versions';
+import { seesOnlySignedOff } from '$lib/server/versions/access';
+import { styleOverview } from '$lib/server/versions/overview';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { studioId, role } = await requireRole(event, ALL_ROLES);
+	const styleId = z.uuid().safeParse(event.params.styleId);
+	if (!styleId.success) error(404, { message: 'No such style.', code: 'not_found' });
+	const overview = await styleOverview(db(), studioId, styleId.data, role).catch(() => null);
+	if (!overview) error(404, { message: 'No such style.', code: 'not_found' });
+	const pieces = [];
+	for (const p of overview.pieces) {
+		pieces.push({
+			id: p.id,
+			name: p.name,
+			cut: p.cut,
+			fabric: p.fabric,
+			shown: p.shown ? { id: p.shown.id, number: p.shown.number, state: p.shown.state, geometry: pieceSchema.parse(p.shown.geometry), checks: p.shown.checks as { code: string; passed: boolean; message: string; warning?: boolean }[] } : null,
+			versions: await versionsOfPiece(db(), p.id, seesOnlySignedOff(role))
+		});
+	}
+	return { style: overview.style, pieces, seamPairs: overview.seamPairs };
+};

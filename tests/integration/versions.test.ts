@@ -1,0 +1,278 @@
+// Styles, pieces and versions through the API, verified on the server (real PostgreSQL, built app).
+import fc from 'fast-check';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
+import { pivot } from '../../src/lib/pattern/operations/pivot';
+import { reshape } from '../../src/lib/pattern/verify/reshape';
+import { pieceMetrics } from '../../src/lib/pattern/metrics';
+import type { Piece } from '../../src/lib/pattern/piece-schema';
+import { versionSave } from '../../src/lib/server/versions/save';
+import { startApp, type RunningApp } from './app-server';
+import { Client, memberAdd, signedInClient, studioMake, testDb, testDbClose, throttleAddressReset, userMake, type TestUser } from './helpers';
+
+let app: RunningApp;
+let studioId: string;
+let cutter: TestUser;
+let designer: TestUser;
+let c: Client;
+
+/** Pivot the shoulder dart of the demo block to a point on the side seam (the move of trade-primer §1). */
+function pivotStep(piece: Piece) {
+	const params = { dartId: 'shoulder-dart', to: { x: 235 - 10 / 3, y: 300 } };
+	const r = pivot(piece, params);
+	if (!r.ok) throw new Error(r.error.message);
+	return { step: { op: 'pivot', params }, piece: r.piece };
+}
+
+async function styleWithPiece(client = c) {
+	const s = await client.api('POST', `/api/studios/${studioId}/styles`, { name: 'Juniper bodice', code: 'LR-101', season: 'AW27' });
+	expect(s.status).toBe(201);
+	const style = (await s.json()).style;
+	const p = await client.api('POST', `/api/studios/${studioId}/styles/${style.id}/pieces`, {
+		name: 'Front',
+		geometry: frontBodiceBlock(),
+		origin: { op: 'draft', params: { note: 'demo block' } }
+	});
+	expect(p.status).toBe(201);
+	const body = await p.json();
+	return { styleId: style.id as string, pieceId: body.piece.id as string, v1: body.version.id as string };
+}
+
+async function headOf(pieceId: string) {
+	const r = await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}`);
+	return (await r.json()).piece as { headVersionId: string; headNumber: number };
+}
+
+beforeAll(async () => {
+	app = await startApp();
+	await throttleAddressReset();
+	const studio = await studioMake('Versions');
+	studioId = studio.id;
+	cutter = await userMake('cutter');
+	designer = await userMake('designer');
+	await memberAdd(studioId, cutter.id, 'patterncutter');
+	await memberAdd(studioId, designer.id, 'designer');
+	c = await signedInClient(app.baseUrl, cutter);
+});
+
+afterAll(async () => {
+	await app?.close();
+	await testDbClose();
+});
+
+describe('saving versions', () => {
+	it('creates a style, a piece with version 1, and version 2 from a pivot, with metrics computed on the server', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'Shoulder dart to the side seam',
+			geometry: piece,
+			recipe: [step],
+			metrics: { areaMm2: 1 } // a client's claim: ignored
+		});
+		expect(r.status).toBe(201);
+		const body = await r.json();
+		expect(body.version.number).toBe(2);
+		const v = await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}`)).json();
+		expect(v.version.metrics.areaMm2).toBeGreaterThan(50_000);
+		expect(v.version.metrics.ledger).toHaveLength(2);
+		expect((await headOf(pieceId)).headNumber).toBe(2);
+	});
+
+	it('refuses (422) a version whose geometry is not what its recipe gives', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		const segs = [...piece.outline.segments];
+		const s0 = segs[6];
+		segs[6] = s0.kind === 'line' ? { ...s0, p1: { x: s0.p1.x + 0.5, y: s0.p1.y } } : s0;
+		segs[7] = { ...segs[7], p0: segs[6].kind === 'line' ? segs[6].p1 : segs[7].p0 } as typeof segs[7];
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'claims a pivot but nudged a point',
+			geometry: { ...piece, outline: { segments: segs } },
+			recipe: [step]
+		});
+		expect(r.status).toBe(422);
+		const body = await r.json();
+		expect(body.error.code).toBe('replay_mismatch');
+		expect(body.error.message).toMatch(/not what its recipe gives/);
+		expect((await headOf(pieceId)).headNumber).toBe(1);
+	});
+
+	it('refuses (422) an unbalanced ledger with an explanation naming the apex and the degrees', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const dart = block.darts.find((d) => d.id === 'shoulder-dart')!;
+		// Drag one shoulder-dart leg end 8 mm along the shoulder by hand: the dart narrows, shaping is lost.
+		const to = { x: dart.leg2End.x + 8, y: dart.leg2End.y + 2 };
+		const params = { moves: [{ from: dart.leg2End, to }] };
+		const moved = reshape(block, params);
+		if (!moved.ok) throw new Error(moved.error.message);
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'narrowed the dart by hand',
+			geometry: moved.piece,
+			recipe: [{ op: 'reshape', params }]
+		});
+		expect(r.status).toBe(422);
+		const body = await r.json();
+		expect(body.error.code).toBe('shaping_not_kept');
+		expect(body.error.message).toMatch(/Bust point/);
+		expect(body.error.message).toMatch(/°/);
+		expect(body.error.message).toMatch(/mm²/);
+	});
+
+	it('accepts that hand change once the lost shaping and area are declared as removed ease', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const dart = block.darts.find((d) => d.id === 'shoulder-dart')!;
+		const params = { moves: [{ from: dart.leg2End, to: { x: dart.leg2End.x + 8, y: dart.leg2End.y + 2 } }] };
+		const moved = reshape(block, params);
+		if (!moved.ok) throw new Error(moved.error.message);
+		const before = pieceMetrics(block);
+		const after = pieceMetrics(moved.piece);
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'less bust shaping after the first fitting',
+			geometry: moved.piece,
+			recipe: [{ op: 'reshape', params }],
+			declared: [
+				{
+					apexId: 'bp',
+					kind: 'removed_ease',
+					refId: 'shoulder-dart',
+					label: 'bust shaping reduced after fitting',
+					angleRad: after.apexTotals[0].totalAngleRad - before.apexTotals[0].totalAngleRad,
+					areaMm2: after.areaMm2 - before.areaMm2,
+					lengthMm: after.seamLengthMm - before.seamLengthMm
+				}
+			]
+		});
+		expect(r.status).toBe(201);
+	});
+
+	it('stores a seam pair out of tolerance as a warning and refuses sign-off until it is trued', async () => {
+		const { styleId, pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		// The side seam of the front (underarm → side waist) against the centre front (a different length).
+		const side = block.outline.segments[6];
+		const cf = block.outline.segments[11];
+		const pair = await c.api('POST', `/api/studios/${studioId}/styles/${styleId}/seam-pairs`, {
+			label: 'side seam',
+			a: { pieceId, from: side.p0, to: side.kind === 'line' ? side.p1 : side.p3 },
+			b: { pieceId, from: cf.p0, to: cf.kind === 'line' ? cf.p1 : cf.p3 },
+			toleranceMm: 1.6
+		});
+		expect(pair.status).toBe(201);
+		const { step, piece } = pivotStep(block);
+		const saved = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'pivot',
+			geometry: piece,
+			recipe: [step]
+		});
+		expect(saved.status).toBe(201);
+		const body = await saved.json();
+		expect(body.warnings).toHaveLength(1);
+		expect(body.warnings[0].message).toMatch(/side seam: .* mm/);
+		const d = await signedInClient(app.baseUrl, designer);
+		const sign = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}/state`, { state: 'signed_off' });
+		expect(sign.status).toBe(409);
+		expect((await sign.json()).error.message).toMatch(/trued/);
+	});
+
+	it('lets a designer sign off a version; the earlier signed-off one becomes superseded', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const d = await signedInClient(app.baseUrl, designer);
+		expect((await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' })).status).toBe(200);
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		const v2 = (await (await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'pivot', geometry: piece, recipe: [step] })).json()).version.id;
+		expect((await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v2}/state`, { state: 'signed_off' })).status).toBe(403);
+		expect((await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v2}/state`, { state: 'signed_off' })).status).toBe(200);
+		const list = (await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions`)).json()).versions as { number: number; state: string }[];
+		expect(list.map((v) => [v.number, v.state])).toEqual([
+			[2, 'signed_off'],
+			[1, 'superseded']
+		]);
+	});
+});
+
+describe('concurrency and failure', () => {
+	it('eight saves from the same base at once give exactly one new version and seven 409s', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		const results = await Promise.all(
+			Array.from({ length: 8 }, (_, i) =>
+				c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: `save ${i}`, geometry: piece, recipe: [step] })
+			)
+		);
+		const statuses = results.map((r) => r.status).sort();
+		expect(statuses).toEqual([201, 409, 409, 409, 409, 409, 409, 409]);
+		const conflict = await results.find((r) => r.status === 409)!.json();
+		expect(conflict.error.message).toMatch(/saved version 2/);
+		const versions = (await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions`)).json()).versions;
+		expect(versions).toHaveLength(2);
+		expect((await headOf(pieceId)).headNumber).toBe(2);
+	});
+
+	it('a save that fails after the insert leaves the head unchanged and stores nothing', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		await expect(
+			versionSave(
+				testDb(),
+				{ studioId, pieceId, baseVersionId: v1, message: 'dies half-way', geometry: piece, recipe: [step], authorId: cutter.id },
+				{ afterInsert: () => { throw new Error('simulated crash after the insert'); } }
+			)
+		).rejects.toThrow('simulated crash');
+		const head = await headOf(pieceId);
+		expect(head.headVersionId).toBe(v1);
+		expect(head.headNumber).toBe(1);
+		const versions = (await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions`)).json()).versions;
+		expect(versions).toHaveLength(1);
+	});
+
+	it('random JSON bodies to the save route always answer 4xx, never 500, and store nothing', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const body = fc.oneof(
+			fc.jsonValue(),
+			fc.record({ baseVersionId: fc.oneof(fc.constant(v1), fc.uuid(), fc.string()), message: fc.string(), geometry: fc.jsonValue(), recipe: fc.jsonValue() }),
+			fc.record({ baseVersionId: fc.constant(v1), message: fc.string({ minLength: 1 }), geometry: fc.constant(block), recipe: fc.array(fc.record({ op: fc.constantFrom('pivot', 'share', 'pleat', 'reshape', 'nope'), params: fc.jsonValue() }), { maxLength: 3 }) })
+		);
+		await fc.assert(
+			fc.asyncProperty(body, async (b) => {
+				const r = await c.request('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { body: JSON.stringify(b), headers: { 'content-type': 'application/json' } });
+				expect(r.status).toBeGreaterThanOrEqual(400);
+				expect(r.status).toBeLessThan(500);
+			}),
+			{ numRuns: 60 }
+		);
+		expect((await headOf(pieceId)).headNumber).toBe(1);
+	});
+});
+
+describe('compare and export', () => {
+	it('compares two versions side by side with the differences', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const { step, piece } = pivotStep(frontBodiceBlock());
+		const v2 = (await (await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'pivot', geometry: piece, recipe: [step] })).json()).version.id;
+		const r = await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/compare?a=${v1}&b=${v2}`);
+		expect(r.status).toBe(200);
+		const body = await r.json();
+		const area = body.rows.find((x: { label: string }) => x.label === 'Area outside the darts');
+		expect(Math.abs(area.difference)).toBeLessThan(0.5); // a pivot keeps the area (trade-primer §1)
+		const apex = body.rows.find((x: { group: string }) => x.group === 'apex');
+		expect(Math.abs(apex.difference)).toBeLessThan(0.01);
+	});
+
+	it('serves a piece as an SVG download with a sensible file name', async () => {
+		const { pieceId } = await styleWithPiece();
+		const r = await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/export.svg`);
+		expect(r.status).toBe(200);
+		expect(r.headers.get('content-type')).toMatch(/image\/svg\+xml/);
+		expect(r.headers.get('content-disposition')).toMatch(/attachment; filename="lr-101-front-v1\.svg"/);
+		expect(await r.text()).toMatch(/<svg [^>]*width="[\d.]+mm"/);
+	});
+});
