@@ -107,15 +107,12 @@ export function outlineSeams(
 	// non-wedge segments in order, with the closing rotation accumulated from wedges just before each
 	const items: { index: number; rotationBefore: number }[] = [];
 	let pending = 0;
-	let lastWedge = -1;
 	for (let i = 0; i < n; i++) {
 		const w = wedgeAt[i];
 		if (w >= 0) {
-			if (w !== lastWedge) pending += spans[w].closingRotationRad;
-			lastWedge = w;
+			if (spans[w].first % n === i) pending += spans[w].closingRotationRad;
 			continue;
 		}
-		lastWedge = -1;
 		items.push({ index: i, rotationBefore: pending });
 		pending = 0;
 	}

@@ -28,10 +28,10 @@ export const cubicSegmentSchema = z.object({
 export const segmentSchema = z.discriminatedUnion('kind', [lineSegmentSchema, cubicSegmentSchema]);
 
 /** Closed net stitching line. */
-export const outlineSchema = z.object({ segments: z.array(segmentSchema).min(2) });
+export const outlineSchema = z.object({ segments: z.array(segmentSchema).min(2).readonly() });
 
 /** Open path (internal lines, cap edges). */
-export const pathSchema = z.object({ segments: z.array(segmentSchema).min(1) });
+export const pathSchema = z.object({ segments: z.array(segmentSchema).min(1).readonly() });
 
 const idSchema = z.string().min(1).max(64);
 
@@ -139,15 +139,15 @@ export const pieceSchema = z.object({
 	id: idSchema,
 	name: z.string().min(1).max(120),
 	outline: outlineSchema,
-	apexes: z.array(apexSchema).default([]),
-	darts: z.array(dartSchema).default([]),
-	pleats: z.array(pleatSchema).default([]),
-	notches: z.array(notchSchema).default([]),
+	apexes: z.array(apexSchema).readonly().default([]),
+	darts: z.array(dartSchema).readonly().default([]),
+	pleats: z.array(pleatSchema).readonly().default([]),
+	notches: z.array(notchSchema).readonly().default([]),
 	grainline: grainlineSchema.nullable().default(null),
 	foldLine: lineMarkSchema.nullable().default(null),
-	internalLines: z.array(internalLineSchema).default([]),
-	drillHoles: z.array(drillHoleSchema).default([]),
-	labels: z.array(labelSchema).default([]),
+	internalLines: z.array(internalLineSchema).readonly().default([]),
+	drillHoles: z.array(drillHoleSchema).readonly().default([]),
+	labels: z.array(labelSchema).readonly().default([]),
 	cut: cutInstructionSchema,
 	fabric: z.string().max(120).default('self')
 });
