@@ -1,0 +1,20 @@
+// See https://svelte.dev/docs/kit/types#app.d.ts
+declare global {
+	namespace App {
+		/** Shape of every error SvelteKit renders or we answer in JSON (`{ error: App.Error }` on /api). */
+		interface Error {
+			message: string;
+			code?: string;
+			fields?: Record<string, string[] | undefined>;
+		}
+		interface Locals {
+			user: { id: string; email: string; name: string } | null;
+			session: { id: string; expiresAt: Date } | null;
+		}
+		// interface PageData {}
+		// interface PageState {}
+		// interface Platform {}
+	}
+}
+
+export {};

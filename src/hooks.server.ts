@@ -1,0 +1,137 @@
+import type { Handle, HandleServerError } from '@sveltejs/kit';
+import { cookieSecure, lucia, sessionCookieClear, sessionCookieSet } from '$lib/server/auth/lucia';
+import { decide, ruleLookup, signInPath } from '$lib/server/authz';
+import { defaultErrorCode, defaultErrorMessage, jsonError } from '$lib/server/http-errors';
+import { cspNonce, scriptsWithNonce, securityHeadersSet } from '$lib/server/security-headers';
+
+const isApi = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
+
+type Event = Parameters<Handle>[0]['event'];
+
+/**
+ * Reads the session cookie into locals. Returns the Set-Cookie value to send when the cookie
+ * changed (refreshed or cleared), for responses the hook answers itself without `resolve`.
+ */
+async function sessionLoad(event: Event): Promise<string | undefined> {
+	event.locals.user = null;
+	event.locals.session = null;
+	const sessionId = event.cookies.get(lucia.sessionCookieName);
+	if (!sessionId) return undefined;
+	// A cookie that is not of the form lucia issues is dropped without a database round trip.
+	const valid = /^[a-z2-7]{40}$/.test(sessionId) ? await lucia.validateSession(sessionId) : null;
+	if (!valid?.session) {
+		sessionCookieClear(event);
+		const blank = lucia.createBlankSessionCookie();
+		return event.cookies.serialize(blank.name, blank.value, {
+			...blank.attributes,
+			path: '/',
+			secure: cookieSecure(event.url)
+		});
+	}
+	const { session, user } = valid;
+	event.locals.session = { id: session.id, expiresAt: session.expiresAt };
+	event.locals.user = { id: user.id, email: user.email, name: user.name };
+	if (session.fresh) {
+		sessionCookieSet(event, session.id);
+		const c = lucia.createSessionCookie(session.id);
+		return event.cookies.serialize(c.name, c.value, { ...c.attributes, path: '/', secure: cookieSecure(event.url) });
+	}
+	return undefined;
+}
+
+/** Answers the request itself when the authz table says no; undefined lets it through. */
+async function gate(event: Event): Promise<Response | undefined> {
+	const routeId = event.route.id;
+	const api = isApi(event.url.pathname);
+	if (routeId === null) return api ? jsonError(404, 'not_found', 'No such API route.') : undefined;
+	const found = ruleLookup(routeId, event.request.method);
+	if (found.kind === 'no_route') {
+		console.error(`[authz] route ${routeId} has no row in src/lib/server/authz.ts: denied`);
+		return api
+			? jsonError(403, 'forbidden', 'This route is not open to anyone yet.')
+			: new Response('Forbidden', { status: 403, headers: { 'content-type': 'text/plain' } });
+	}
+	if (found.kind === 'no_method') {
+		const allow = found.allow.join(', ');
+		return api
+			? jsonError(405, 'method_not_allowed', `Use ${allow} here.`, undefined, { allow })
+			: new Response('Method Not Allowed', { status: 405, headers: { allow, 'content-type': 'text/plain' } });
+	}
+	const d = await decide(event, found.rule);
+	if (d.ok) return undefined;
+	if (api) return jsonError(d.status, defaultErrorCode(d.status), d.message);
+	if (d.status === 401) return new Response(null, { status: 303, headers: { location: signInPath(event.url) } });
+	return new Response(d.status === 404 ? 'Not Found' : 'Forbidden', {
+		status: d.status,
+		headers: { 'content-type': 'text/plain; charset=utf-8' }
+	});
+}
+
+/** Cross-site writes to the JSON API are refused, as SvelteKit already does for form posts. */
+function foreignOrigin(event: Event): boolean {
+	if (['GET', 'HEAD', 'OPTIONS'].includes(event.request.method)) return false;
+	const origin = event.request.headers.get('origin');
+	return origin !== null && origin !== event.url.origin;
+}
+
+/** Non-JSON or SvelteKit-shaped errors on /api become `{ error: { code, message } }`. */
+async function apiErrorShape(response: Response): Promise<Response> {
+	if (response.status < 400) return response;
+	const type = response.headers.get('content-type') ?? '';
+	let message = defaultErrorMessage(response.status);
+	if (type.includes('application/json')) {
+		const body = (await response.clone().json().catch(() => null)) as
+			| { error?: unknown; message?: unknown }
+			| null;
+		if (body && typeof body.error === 'object' && body.error !== null) return response;
+		if (body && typeof body.message === 'string' && response.status < 500) message = body.message;
+	}
+	const out = jsonError(response.status, defaultErrorCode(response.status), message);
+	for (const h of ['allow', 'retry-after', 'set-cookie']) {
+		const v = response.headers.get(h);
+		if (v) out.headers.set(h, v);
+	}
+	return out;
+}
+
+function mutable(response: Response): Response {
+	try {
+		response.headers.set('x-content-type-options', 'nosniff');
+		return response;
+	} catch {
+		return new Response(response.body, response);
+	}
+}
+
+export const handle: Handle = async ({ event, resolve }) => {
+	const nonce = cspNonce();
+	const cookieChange = await sessionLoad(event);
+
+	let response: Response;
+	const early =
+		isApi(event.url.pathname) && foreignOrigin(event)
+			? jsonError(403, 'forbidden', 'Cross-site requests are not allowed.')
+			: await gate(event);
+	if (early) {
+		response = mutable(early);
+		if (cookieChange) response.headers.append('set-cookie', cookieChange);
+	} else {
+		response = await resolve(event, { transformPageChunk: ({ html }) => scriptsWithNonce(html, nonce) });
+	}
+	if (isApi(event.url.pathname)) {
+		response = await apiErrorShape(response);
+		response.headers.set('cache-control', 'no-store');
+	}
+	response = mutable(response);
+	securityHeadersSet(response.headers, nonce);
+	return response;
+};
+
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (status >= 500) {
+		const id = crypto.randomUUID();
+		console.error(`[error ${id}] ${event.request.method} ${event.url.pathname}:`, error);
+		return { message: `Something went wrong on our side (reference ${id}).`, code: 'internal' };
+	}
+	return { message, code: defaultErrorCode(status) };
+};

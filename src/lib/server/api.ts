@@ -1,0 +1,93 @@
+import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { ApiError, defaultErrorCode, jsonError } from './http-errors';
+import { fieldErrors } from './validation';
+
+/** Largest JSON body the API routes of this module read (bytes). */
+export const API_BODY_LIMIT = 1024 * 1024;
+
+/**
+ * Wraps a +server.ts handler: whatever it throws (ApiError, SvelteKit's error(), anything else)
+ * becomes `{ error: { code, message, fields? } }` with the right status; unexpected errors are
+ * logged and answered 500 without details.
+ */
+export function apiRoute<E extends RequestEvent>(handler: (event: E) => Promise<Response>) {
+	return async (event: E): Promise<Response> => {
+		try {
+			return await handler(event);
+		} catch (e) {
+			if (e instanceof ApiError) return jsonError(e.status, e.code, e.message, e.fields, e.headers);
+			if (isHttpError(e)) {
+				return jsonError(e.status, e.body.code ?? defaultErrorCode(e.status), e.body.message, e.body.fields);
+			}
+			if (isRedirect(e)) throw e;
+			console.error(`[api] ${event.request.method} ${event.url.pathname}:`, e);
+			return jsonError(500);
+		}
+	};
+}
+
+function tooLarge(limit: number): ApiError {
+	return new ApiError(413, 'payload_too_large', `The request body is larger than ${limit} bytes.`);
+}
+
+/** Reads the body as text, refusing it (413) past `limit` by content-length or by bytes read. */
+export async function readBodyLimited(request: Request, limit = API_BODY_LIMIT): Promise<string> {
+	const declared = request.headers.get('content-length');
+	if (declared !== null && Number(declared) > limit) throw tooLarge(limit);
+	if (!request.body) return '';
+	const reader = request.body.getReader();
+	const chunks: Uint8Array[] = [];
+	let size = 0;
+	try {
+		for (;;) {
+			const { done, value } = await reader.read();
+			if (done) break;
+			size += value.byteLength;
+			if (size > limit) {
+				await reader.cancel().catch(() => {});
+				throw tooLarge(limit);
+			}
+			chunks.push(value);
+		}
+	} catch (e) {
+		if (e instanceof ApiError) throw e;
+		// adapter-node's own BODY_SIZE_LIMIT surfaces here as a stream error with status 413
+		if ((e as { status?: number })?.status === 413) throw tooLarge(limit);
+		throw new ApiError(400, 'bad_request', 'The request body could not be read.');
+	}
+	return Buffer.concat(chunks).toString('utf8');
+}
+
+/** Reads, size-checks, parses and validates a JSON body; 400 with field errors when it does not fit. */
+export async function readJson<S extends z.ZodType>(
+	request: Request,
+	schema: S,
+	limit = API_BODY_LIMIT
+): Promise<z.output<S>> {
+	const type = request.headers.get('content-type') ?? '';
+	if (!/^application\/(.+\+)?json\b/i.test(type)) {
+		throw new ApiError(415, 'unsupported_media_type', 'Send JSON (Content-Type: application/json).');
+	}
+	const text = await readBodyLimited(request, limit);
+	let value: unknown;
+	try {
+		value = text === '' ? undefined : JSON.parse(text);
+	} catch {
+		throw new ApiError(400, 'invalid_json', 'The request body is not valid JSON.');
+	}
+	const parsed = schema.safeParse(value);
+	if (!parsed.success) {
+		throw new ApiError(400, 'invalid', 'Some fields are not valid.', fieldErrors(parsed.error));
+	}
+	return parsed.data;
+}
+
+/** Validates route params; 400 with field errors. */
+export function parseParams<S extends z.ZodType>(params: unknown, schema: S): z.output<S> {
+	const parsed = schema.safeParse(params);
+	if (!parsed.success) {
+		throw new ApiError(400, 'invalid_params', 'Some parts of the address are not valid.', fieldErrors(parsed.error));
+	}
+	return parsed.data;
+}

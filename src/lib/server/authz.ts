@@ -1,0 +1,146 @@
+import { error, redirect, type RequestEvent } from '@sveltejs/kit';
+import { db } from './db';
+import type { Role } from './db/schema';
+import { membershipsRole } from './repositories/memberships';
+import { uuidSchema } from './validation';
+
+/**
+ * Who may do what, in one table: SvelteKit route id → HTTP method → rule.
+ *   'public'     anyone, signed in or not
+ *   'signed_in'  any signed-in user
+ *   Role[]       signed-in members of the route's studio ([studioId] param) with one of these roles
+ *
+ * Default deny. `hooks.server.ts` checks every request against this table before the route runs:
+ *   - a route id with no row → 403 (and an error in the log: every route needs a row);
+ *   - a method with no entry → 405 with an Allow header (HEAD counts as GET);
+ *   - signed out on a rule other than 'public' → 401 on /api, otherwise 303 to /signin?next=…;
+ *   - not a member of the studio (or no such studio, or a malformed id) → 404, never 403, so another
+ *     studio's resources look exactly like missing ones;
+ *   - a member whose role is not listed → 403.
+ * Every form action, load and +server.ts handler checks again with `requireRole(event, rule)`.
+ * Page routes: GET = page load, POST = form actions. Add a row with each new route (the integration
+ * authorization matrix fails for a route file without one).
+ */
+export type Rule = 'public' | 'signed_in' | readonly Role[];
+export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+export const ALL_ROLES = ['owner', 'patterncutter', 'designer', 'sampleroom'] as const satisfies readonly Role[];
+export const OWNER = ['owner'] as const satisfies readonly Role[];
+/** Write pieces and versions. */
+export const EDITORS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
+/** Propose (editors) or sign off (owner, designer): the handler checks which. */
+export const EDITORS_AND_SIGNERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
+
+export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
+	// pages
+	'/': { GET: 'public' },
+	'/(auth)/signup': { GET: 'public', POST: 'public' },
+	'/(auth)/signin': { GET: 'public', POST: 'public' },
+	'/(auth)/signout': { GET: 'public', POST: 'public' },
+	'/(auth)/reset': { GET: 'public', POST: 'public' },
+	'/(auth)/reset/[token]': { GET: 'public', POST: 'public' },
+	'/(auth)/invite/[token]': { GET: 'public', POST: 'public' },
+	'/studios/new': { GET: 'signed_in', POST: 'signed_in' },
+	'/studios/[studioId]': { GET: ALL_ROLES },
+	'/studios/[studioId]/members': { GET: ALL_ROLES },
+	'/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES },
+	'/studios/[studioId]/styles/[styleId]/compare': { GET: ALL_ROLES },
+	// JSON API
+	'/api/me': { GET: 'signed_in' },
+	'/api/studios': { GET: 'signed_in', POST: 'signed_in' },
+	'/api/studios/[studioId]': { GET: ALL_ROLES, PATCH: OWNER },
+	'/api/studios/[studioId]/members': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/members/[userId]': { PATCH: OWNER, DELETE: OWNER },
+	'/api/studios/[studioId]/invitations': { GET: OWNER, POST: OWNER },
+	// styles, pieces, versions (the sample room sees signed-off versions only; handlers filter)
+	'/api/studios/[studioId]/styles': { GET: ALL_ROLES, POST: EDITORS },
+	'/api/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES, PATCH: EDITORS },
+	'/api/studios/[studioId]/styles/[styleId]/pieces': { POST: EDITORS },
+	'/api/studios/[studioId]/styles/[styleId]/seam-pairs': { GET: ALL_ROLES, POST: EDITORS },
+	'/api/studios/[studioId]/styles/[styleId]/export.svg': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/pieces/[pieceId]': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions': { GET: ALL_ROLES, POST: EDITORS },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state': { POST: EDITORS_AND_SIGNERS },
+	'/api/studios/[studioId]/pieces/[pieceId]/compare': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/pieces/[pieceId]/export.svg': { GET: ALL_ROLES }
+};
+
+export type Lookup =
+	| { kind: 'rule'; rule: Rule }
+	| { kind: 'no_route' }
+	| { kind: 'no_method'; allow: string[] };
+
+export function ruleLookup(routeId: string, method: string): Lookup {
+	const row = AUTHZ[routeId];
+	if (!row) return { kind: 'no_route' };
+	const m = (method === 'HEAD' ? 'GET' : method) as Method;
+	const rule = row[m];
+	if (rule) return { kind: 'rule', rule };
+	const allow = Object.keys(row);
+	if (allow.includes('GET')) allow.push('HEAD');
+	return { kind: 'no_method', allow };
+}
+
+type Event = Pick<RequestEvent, 'locals' | 'params' | 'route' | 'url'>;
+type SignedIn = { user: NonNullable<App.Locals['user']> };
+export type Granted<R extends Rule> = R extends 'public'
+	? { user: App.Locals['user'] }
+	: R extends 'signed_in'
+		? SignedIn
+		: SignedIn & { studioId: string; role: Role };
+
+export type Decision =
+	| { ok: true; user: App.Locals['user']; studioId?: string; role?: Role }
+	| { ok: false; status: 401 | 403 | 404; message: string };
+
+// One membership lookup per request, shared by the hook and the route's own check.
+const roleCache = new WeakMap<App.Locals, Map<string, Promise<Role | undefined>>>();
+
+function roleOf(locals: App.Locals, studioId: string, userId: string): Promise<Role | undefined> {
+	let m = roleCache.get(locals);
+	if (!m) roleCache.set(locals, (m = new Map()));
+	let p = m.get(`${studioId}:${userId}`);
+	if (!p) {
+		p = membershipsRole(db(), studioId, userId);
+		m.set(`${studioId}:${userId}`, p);
+	}
+	return p;
+}
+
+/** The decision itself, without side effects; used by the hook and by `requireRole`. */
+export async function decide(event: Event, rule: Rule): Promise<Decision> {
+	const user = event.locals.user;
+	if (rule === 'public') return { ok: true, user };
+	if (!user) return { ok: false, status: 401, message: 'Sign in first.' };
+	if (rule === 'signed_in') return { ok: true, user };
+	const raw = (event.params as Record<string, string | undefined>).studioId;
+	if (raw === undefined) throw new Error(`authz: role rule on route ${event.route.id} without [studioId]`);
+	const studioId = uuidSchema.safeParse(raw);
+	if (!studioId.success) return { ok: false, status: 404, message: 'No such studio.' };
+	const role = await roleOf(event.locals, studioId.data, user.id);
+	if (!role) return { ok: false, status: 404, message: 'No such studio.' };
+	if (!rule.includes(role)) {
+		return { ok: false, status: 403, message: `Your role (${role}) does not allow this in this studio.` };
+	}
+	return { ok: true, user, studioId: studioId.data, role };
+}
+
+export function signInPath(url: URL): string {
+	return `/signin?next=${encodeURIComponent(url.pathname + url.search)}`;
+}
+
+/**
+ * The check every load, form action and +server.ts handler makes. Throws SvelteKit's `error()`
+ * (401/403/404; the API wrapper turns it into JSON) or, on pages, redirects a signed-out visitor to
+ * the sign-in page.
+ */
+export async function requireRole<R extends Rule>(event: Event, rule: R): Promise<Granted<R>> {
+	const d = await decide(event, rule);
+	if (!d.ok) {
+		if (d.status === 401 && !event.route.id?.startsWith('/api/')) redirect(303, signInPath(event.url));
+		const code = d.status === 401 ? 'unauthenticated' : d.status === 403 ? 'forbidden' : 'not_found';
+		error(d.status, { message: d.message, code });
+	}
+	return d as unknown as Granted<R>;
+}

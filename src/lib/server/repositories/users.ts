@@ -1,0 +1,47 @@
+import type { DbOrTx } from '../db';
+
+export interface UserRow {
+	id: string;
+	email: string;
+	name: string;
+}
+
+export interface UserWithHash extends UserRow {
+	password_hash: string;
+}
+
+export function emailNormalize(email: string): string {
+	return email.trim().toLowerCase();
+}
+
+export async function usersCreate(
+	db: DbOrTx,
+	input: { email: string; name: string; passwordHash: string }
+): Promise<UserRow> {
+	return db
+		.insertInto('users')
+		.values({ email: emailNormalize(input.email), name: input.name, password_hash: input.passwordHash })
+		.returning(['id', 'email', 'name'])
+		.executeTakeFirstOrThrow();
+}
+
+export async function usersByEmail(db: DbOrTx, email: string): Promise<UserWithHash | undefined> {
+	return db
+		.selectFrom('users')
+		.select(['id', 'email', 'name', 'password_hash'])
+		.where('email', '=', emailNormalize(email))
+		.executeTakeFirst();
+}
+
+export async function usersById(db: DbOrTx, id: string): Promise<UserRow | undefined> {
+	return db.selectFrom('users').select(['id', 'email', 'name']).where('id', '=', id).executeTakeFirst();
+}
+
+export async function usersPasswordSet(db: DbOrTx, id: string, passwordHash: string): Promise<void> {
+	await db.updateTable('users').set({ password_hash: passwordHash }).where('id', '=', id).execute();
+}
+
+/** Is this a unique-key violation from PostgreSQL (e.g. an e-mail already taken)? */
+export function isUniqueViolation(e: unknown): boolean {
+	return typeof e === 'object' && e !== null && (e as { code?: unknown }).code === '23505';
+}

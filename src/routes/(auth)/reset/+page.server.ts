@@ -1,0 +1,37 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { passwordResetRequest } from '$lib/server/auth/accounts';
+import { requireRole } from '$lib/server/authz';
+import { db } from '$lib/server/db';
+import { emailSchema, fieldErrors, formObject } from '$lib/server/validation';
+import type { Actions, PageServerLoad } from './$types';
+
+const schema = z.object({ email: emailSchema });
+
+export const load: PageServerLoad = async (event) => {
+	await requireRole(event, 'public');
+	return {};
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		await requireRole(event, 'public');
+		const raw = formObject(await event.request.formData());
+		const parsed = schema.safeParse(raw);
+		if (!parsed.success) {
+			return fail(400, { email: raw.email ?? '', errors: fieldErrors(parsed.error), sent: false });
+		}
+		try {
+			await passwordResetRequest(db(), { email: parsed.data.email, origin: event.url.origin });
+		} catch (e) {
+			console.error('[reset] could not send the reset mail:', e);
+			return fail(503, {
+				email: parsed.data.email,
+				errors: { email: ['We could not send mail just now. Try again in a few minutes.'] },
+				sent: false
+			});
+		}
+		// The same answer whether or not the address has an account.
+		return { email: parsed.data.email, errors: {}, sent: true };
+	}
+};
