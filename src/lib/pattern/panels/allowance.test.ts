@@ -53,7 +53,7 @@ describe('allowance', () => {
 		if (!r.ok) throw new Error(r.error.message);
 		const co = new ClipperLib.ClipperOffset(4, 2);
 		co.AddPath(toClipper(outlineFlatten(piece.outline)), ClipperLib.JoinType.jtMiter, ClipperLib.EndType.etClosedPolygon);
-		const out = new ClipperLib.Paths();
+		const out = ([] as ClipperLib.Paths);
 		co.Execute(out, 10 * CLIPPER_SCALE);
 		const ref = fromClipper(out[0]);
 		expect(Math.abs(Math.abs(polygonSignedArea(r.cutLine)) - Math.abs(polygonSignedArea(ref)))).toBeLessThan(0.01);

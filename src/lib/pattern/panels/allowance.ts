@@ -109,7 +109,7 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 		if (e.widthMm === 0) continue;
 		const co = new ClipperLib.ClipperOffset(2, arcTolerance);
 		co.AddPath(toClipper(single ? polys[i].slice(0, -1) : polys[i]), ClipperLib.JoinType.jtRound, single ? ClipperLib.EndType.etClosedLine : ClipperLib.EndType.etOpenButt);
-		const out = new ClipperLib.Paths();
+		const out = ([] as ClipperLib.Paths);
 		co.Execute(out, e.widthMm * CLIPPER_SCALE);
 		for (const p of out) subjects.push(oriented(p));
 	}
@@ -141,7 +141,7 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 	}
 	const c = new ClipperLib.Clipper();
 	c.AddPaths(subjects, ClipperLib.PolyType.ptSubject, true);
-	let solution = new ClipperLib.Paths();
+	let solution: ClipperLib.Paths = [];
 	c.Execute(ClipperLib.ClipType.ctUnion, solution, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
 	// trim at fold lines: nothing beyond the fold
 	for (const e of edges.filter((x) => x.isFold)) {
@@ -161,7 +161,7 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 		const d = new ClipperLib.Clipper();
 		d.AddPaths(solution, ClipperLib.PolyType.ptSubject, true);
 		d.AddPath(oriented(toClipper(cutAway)), ClipperLib.PolyType.ptClip, true);
-		const next = new ClipperLib.Paths();
+		const next = ([] as ClipperLib.Paths);
 		d.Execute(ClipperLib.ClipType.ctDifference, next, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
 		solution = next;
 	}

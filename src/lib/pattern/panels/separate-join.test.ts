@@ -160,7 +160,7 @@ describe('separate then join', () => {
 		const withT = polys.map((poly, i) => insertTJunctions(poly, polys[1 - i]));
 		const c = new ClipperLib.Clipper();
 		for (const poly of withT) c.AddPath(poly.map((v) => ({ X: Math.round(v.x * CLIPPER_SCALE), Y: Math.round(v.y * CLIPPER_SCALE) })), ClipperLib.PolyType.ptSubject, true);
-		const out = new ClipperLib.Paths();
+		const out = ([] as ClipperLib.Paths);
 		c.Execute(ClipperLib.ClipType.ctUnion, out, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
 		expect(out.length).toBe(1); // one ring: no sliver holes
 		const clipperArea = Math.abs(ClipperLib.Clipper.Area(out[0])) / CLIPPER_SCALE ** 2;
