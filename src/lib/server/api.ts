@@ -28,7 +28,10 @@ export function apiRoute<E extends RequestEvent>(handler: (event: E) => Promise<
 }
 
 function tooLarge(limit: number): ApiError {
-	return new ApiError(413, 'payload_too_large', `The request body is larger than ${limit} bytes.`);
+	// The rest of the body stays unread: close the connection after answering.
+	return new ApiError(413, 'payload_too_large', `The request body is larger than ${limit} bytes.`, undefined, {
+		connection: 'close'
+	});
 }
 
 /** Reads the body as text, refusing it (413) past `limit` by content-length or by bytes read. */
@@ -45,7 +48,9 @@ export async function readBodyLimited(request: Request, limit = API_BODY_LIMIT):
 			if (done) break;
 			size += value.byteLength;
 			if (size > limit) {
-				await reader.cancel().catch(() => {});
+				// Stop reading, but do not cancel: that would destroy the socket before we can answer.
+				// Node discards the rest of the body after the response.
+				reader.releaseLock();
 				throw tooLarge(limit);
 			}
 			chunks.push(value);
