@@ -13,7 +13,8 @@ const bez = (s: Segment) => {
 };
 /** Arc length from the start of a cubic to the point nearest p, by bezier-js (independent of the kernel). */
 const lengthTo = (s: Segment, p: Vec) => {
-	const b = bez(s);
+	// bezier-js 6 ships no types; the shared shim (geometry/test-support) lists only length() and bbox()
+	const b = bez(s) as unknown as { get(t: number): Vec; split(t0: number, t1: number): { length(): number } };
 	// nearest parameter by a dense scan then golden-section refinement (bezier-js project() is coarse)
 	const d = (t: number) => Math.hypot(b.get(t).x - p.x, b.get(t).y - p.y);
 	let best = 0;
