@@ -83,10 +83,9 @@ describe('saving versions', () => {
 	it('refuses (422) a version whose geometry is not what its recipe gives', async () => {
 		const { pieceId, v1 } = await styleWithPiece();
 		const { step, piece } = pivotStep(frontBodiceBlock());
-		const segs = [...piece.outline.segments];
-		const s0 = segs[6];
-		segs[6] = s0.kind === 'line' ? { ...s0, p1: { x: s0.p1.x + 0.5, y: s0.p1.y } } : s0;
-		segs[7] = { ...segs[7], p0: segs[6].kind === 'line' ? segs[6].p1 : segs[7].p0 } as typeof segs[7];
+		// Nudge one Bézier handle by 0.5 mm: a sound piece, but not what the pivot gives.
+		const k = piece.outline.segments.findIndex((x) => x.kind === 'cubic');
+		const segs = piece.outline.segments.map((x, i) => (i === k && x.kind === 'cubic' ? { ...x, p1: { x: x.p1.x + 0.5, y: x.p1.y } } : x));
 		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
 			baseVersionId: v1,
 			message: 'claims a pivot but nudged a point',
@@ -155,11 +154,12 @@ describe('saving versions', () => {
 	it('stores a seam pair out of tolerance as a warning and refuses sign-off until it is trued', async () => {
 		const { styleId, pieceId, v1 } = await styleWithPiece();
 		const block = frontBodiceBlock();
-		// The side seam of the front (underarm → side waist) against the centre front (a different length).
-		const side = block.outline.segments[6];
+		// The waist of the front (side waist → waist dart) against the centre front: a different length,
+		// and both stay where they are when the shoulder dart is pivoted to the side seam.
+		const side = block.outline.segments[7];
 		const cf = block.outline.segments[11];
 		const pair = await c.api('POST', `/api/studios/${studioId}/styles/${styleId}/seam-pairs`, {
-			label: 'side seam',
+			label: 'waist to centre front',
 			a: { pieceId, from: side.p0, to: side.kind === 'line' ? side.p1 : side.p3 },
 			b: { pieceId, from: cf.p0, to: cf.kind === 'line' ? cf.p1 : cf.p3 },
 			toleranceMm: 1.6
@@ -175,7 +175,7 @@ describe('saving versions', () => {
 		expect(saved.status).toBe(201);
 		const body = await saved.json();
 		expect(body.warnings).toHaveLength(1);
-		expect(body.warnings[0].message).toMatch(/side seam: .* mm/);
+		expect(body.warnings[0].message).toMatch(/waist to centre front: .* mm/);
 		const d = await signedInClient(app.baseUrl, designer);
 		const sign = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}/state`, { state: 'signed_off' });
 		expect(sign.status).toBe(409);
