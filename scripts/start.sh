@@ -29,7 +29,9 @@ trap cleanup EXIT INT TERM
 MAIL_DEV_SMTP_PORT="$MAIL_SMTP_PORT" MAIL_DEV_HTTP_PORT="$MAIL_HTTP_PORT" npx tsx scripts/mail-dev.ts >"$RUN_DIR/mail-dev.log" 2>&1 &
 MAIL_PID=$!
 
-export HOST=127.0.0.1 PORT="$APP_PORT" SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT"
+# adapter-node: without ORIGIN it assumes https, which would refuse form posts on plain-http loopback.
+export HOST=127.0.0.1 PORT="$APP_PORT" ORIGIN="${ORIGIN:-http://127.0.0.1:$APP_PORT}"
+export SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT"
 export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-8M}"
 node build &
 APP_PID=$!

@@ -44,6 +44,8 @@ export default async function setup(project: TestProject) {
 			...env,
 			HOST: '127.0.0.1',
 			PORT: String(appPort),
+			ORIGIN: `http://127.0.0.1:${appPort}`,
+			BODY_SIZE_LIMIT: '8M',
 			SMTP_HOST: '127.0.0.1',
 			SMTP_PORT: String(smtpPort),
 			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>'
