@@ -141,11 +141,17 @@ function lineHitsOnChain(
 			if (h.u < uMin - tolerance / dl || h.u > uMax + tolerance / dl) continue;
 			let segmentIndex = i;
 			let t = h.t;
+			let point = h.point;
 			if (t >= 1 - PARAMETER_TOLERANCE && (closed || i + 1 < n)) {
 				segmentIndex = (i + 1) % n;
 				t = 0;
-			} else if (t <= PARAMETER_TOLERANCE) t = 0;
-			hits.push({ segmentIndex, t, u: h.u, point: h.point });
+				point = segs[segmentIndex].p0;
+			} else if (t <= PARAMETER_TOLERANCE) {
+				t = 0;
+				point = s.p0;
+			}
+			const u = point === h.point ? h.u : ((point.x - ox) * ux + (point.y - oy) * uy) / dl;
+			hits.push({ segmentIndex, t, u, point });
 		}
 	}
 	// de-duplicate (a crossing at a shared vertex is found on both segments)

@@ -33,10 +33,25 @@ export function segmentNearestPoint(s: Segment, p: Vec): { t: number; point: Vec
 	for (let i = 0; i <= SAMPLES; i++) {
 		const isLocalMin = (i === 0 || d2[i] <= d2[i - 1]) && (i === SAMPLES || d2[i] <= d2[i + 1]);
 		if (!isLocalMin) continue;
-		const lo = Math.max(0, (i - 1) / SAMPLES);
-		const hi = Math.min(1, (i + 1) / SAMPLES);
-		let t = i / SAMPLES;
-		for (let k = 0; k < 30; k++) {
+		// golden-section search on the bracket around the sample (robust), then Newton polish (fast, exact)
+		let lo = Math.max(0, (i - 1) / SAMPLES);
+		let hi = Math.min(1, (i + 1) / SAMPLES);
+		const dist2 = (u: number): number => {
+			const q = segmentPointAt(s, u);
+			return (q.x - p.x) ** 2 + (q.y - p.y) ** 2;
+		};
+		const g = 0.6180339887498949;
+		let x1 = hi - g * (hi - lo);
+		let x2 = lo + g * (hi - lo);
+		let f1 = dist2(x1);
+		let f2 = dist2(x2);
+		for (let k = 0; k < 40; k++) {
+			if (f1 <= f2) { hi = x2; x2 = x1; f2 = f1; x1 = hi - g * (hi - lo); f1 = dist2(x1); }
+			else { lo = x1; x1 = x2; f1 = f2; x2 = lo + g * (hi - lo); f2 = dist2(x2); }
+		}
+		let t = f1 <= f2 ? x1 : x2;
+		let ft = Math.min(f1, f2);
+		for (let k = 0; k < 8; k++) {
 			const q = segmentPointAt(s, t);
 			const d1 = segmentDerivativeAt(s, t);
 			const dd = segmentSecondDerivativeAt(s, t);
@@ -44,11 +59,11 @@ export function segmentNearestPoint(s: Segment, p: Vec): { t: number; point: Vec
 			const f = ex * d1.x + ey * d1.y;
 			const fp = d1.x * d1.x + d1.y * d1.y + ex * dd.x + ey * dd.y;
 			if (fp <= 0) break;
-			let next = t - f / fp;
-			if (next < lo) next = lo;
-			if (next > hi) next = hi;
-			if (Math.abs(next - t) < 1e-14) { t = next; break; }
+			const next = Math.min(1, Math.max(0, t - f / fp));
+			const fn = dist2(next);
+			if (!(fn < ft)) break;
 			t = next;
+			ft = fn;
 		}
 		const q = segmentPointAt(s, t);
 		const d = (q.x - p.x) ** 2 + (q.y - p.y) ** 2;
