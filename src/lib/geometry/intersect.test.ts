@@ -136,6 +136,18 @@ describe('self-intersection', () => {
 		expect(vecDistance(hits[0].point, { x: 50, y: 50 })).toBeLessThan(1e-9);
 	});
 
+	it('neighbouring cubics that cross away from their shared vertex are reported, on both curves', () => {
+		const a: CubicSegment = { kind: 'cubic', p0: { x: 0, y: 0 }, p1: { x: 3, y: 0.5 }, p2: { x: 7, y: -0.5 }, p3: { x: 10, y: 0 } };
+		const b: CubicSegment = { kind: 'cubic', p0: { x: 10, y: 0 }, p1: { x: 20, y: 10 }, p2: { x: -5, y: 10 }, p3: { x: 5, y: -5 } };
+		const c: Segment = { kind: 'line', p0: { x: 5, y: -5 }, p1: { x: 0, y: 0 } };
+		const hits = outlineSelfIntersections({ segments: [a, b, c] });
+		expect(hits.length).toBeGreaterThan(0);
+		const ab = hits.filter((h) => h.segmentIndex === 0 && h.otherSegmentIndex === 1);
+		expect(ab.length).toBe(1);
+		expect(vecDistance(segmentPointAt(a, ab[0].t), segmentPointAt(b, ab[0].otherT))).toBeLessThan(1e-6);
+		expect(vecDistance(ab[0].point, { x: 10, y: 0 })).toBeGreaterThan(1);
+	});
+
 	it('path against path finds the crossing of two polylines', () => {
 		const hits = pathIntersections(pathFromPolyline([{ x: 0, y: 0 }, { x: 10, y: 0 }, { x: 10, y: 10 }]), pathFromPolyline([{ x: 5, y: 5 }, { x: 15, y: 5 }]));
 		expect(hits.map((h) => [h.segmentIndex, h.otherSegmentIndex, h.point.x, h.point.y])).toEqual([[1, 0, 10, 5]]);

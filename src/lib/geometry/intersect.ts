@@ -1,6 +1,6 @@
 import type { CubicSegment, Path, Segment, SegmentChain, Vec } from './types';
 import { bernsteinCubicRoots, quadraticRoots } from './roots';
-import { segmentDerivativeAt, segmentPointAt, segmentSplitAt } from './segment';
+import { segmentBetween, segmentDerivativeAt, segmentPointAt, segmentSplitAt } from './segment';
 import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM, PARAMETER_TOLERANCE, ROOT_TOLERANCE_MM } from './tolerance';
 
 /**
@@ -440,7 +440,10 @@ export function outlineSelfIntersections(chain: SegmentChain, closed = true, tol
 			const si = segs[i];
 			const sj = segs[j];
 			const endI = si.kind === 'line' ? si.p1 : si.p3;
-			for (const h of segmentIntersections(si, sj, tolerance)) {
+			const hits = (nextOfI || wrap) && si.kind === 'cubic' && sj.kind === 'cubic'
+				? neighbourCubicHits(si, sj, nextOfI, wrap, tolerance, vertexTolerance)
+				: segmentIntersections(si, sj, tolerance);
+			for (const h of hits) {
 				// consecutive segments meet at their shared vertex: not a self-intersection
 				if (nextOfI && Math.hypot(h.point.x - endI.x, h.point.y - endI.y) <= vertexTolerance && h.ta > 0.5 && h.tb < 0.5) continue;
 				if (wrap && Math.hypot(h.point.x - si.p0.x, h.point.y - si.p0.y) <= vertexTolerance && h.ta < 0.5 && h.tb > 0.5) continue;
@@ -450,4 +453,30 @@ export function outlineSelfIntersections(chain: SegmentChain, closed = true, tol
 	}
 	out.sort((p, q) => p.segmentIndex - q.segmentIndex || p.t - q.t);
 	return out;
+}
+
+/** Parameter span at a cubic's end that stays within `distance` of that end (|B'| ≤ 3·longest leg). */
+function endSpan(c: CubicSegment, distance: number): number {
+	const leg = Math.max(
+		Math.hypot(c.p1.x - c.p0.x, c.p1.y - c.p0.y),
+		Math.hypot(c.p2.x - c.p1.x, c.p2.y - c.p1.y),
+		Math.hypot(c.p3.x - c.p2.x, c.p3.y - c.p2.y)
+	);
+	return leg === 0 ? 0 : Math.min(0.25, distance / (3 * leg));
+}
+
+/**
+ * Crossings of two neighbouring cubics away from their shared vertex: the bits within
+ * `vertexTolerance` of the shared vertex are cut off first, so the subdivision does not dig into
+ * the (ignored) touching point. Parameters are mapped back to the whole segments.
+ */
+function neighbourCubicHits(a: CubicSegment, b: CubicSegment, aEndMeetsBStart: boolean, bEndMeetsAStart: boolean, tol: number, vertexTolerance: number): SegmentPairHit[] {
+	const ea = endSpan(a, vertexTolerance * 0.5);
+	const eb = endSpan(b, vertexTolerance * 0.5);
+	const a0 = bEndMeetsAStart ? ea : 0;
+	const a1 = aEndMeetsBStart ? 1 - ea : 1;
+	const b0 = aEndMeetsBStart ? eb : 0;
+	const b1 = bEndMeetsAStart ? 1 - eb : 1;
+	const hits = curveCurve(segmentBetween(a, a0, a1) as CubicSegment, segmentBetween(b, b0, b1) as CubicSegment, tol);
+	return hits.map((h) => ({ ta: a0 + h.ta * (a1 - a0), tb: b0 + h.tb * (b1 - b0), point: h.point }));
 }
