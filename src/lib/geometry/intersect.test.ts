@@ -12,11 +12,12 @@ import {
 	segmentLineIntersections,
 	segmentSelfIntersection
 } from './intersect';
+import { segmentFlatten } from './flatten';
 import { outlineFromPolyline, pathFromPolyline } from './path';
 import { segmentPointAt } from './segment';
 import type { CubicSegment, Segment } from './types';
 import { vecDistance } from './vec';
-import { bezierCircle, starPolygon } from './test-support/arbitraries';
+import { arbOutline, arbPoint, bezierCircle, starPolygon } from './test-support/arbitraries';
 
 describe('line against outline', () => {
 	const square = outlineFromPolyline([{ x: 0, y: 0 }, { x: 100, y: 0 }, { x: 100, y: 100 }, { x: 0, y: 100 }]);
@@ -54,6 +55,22 @@ describe('line against outline', () => {
 					expect(vecDistance(h.point, { x: origin.x + dir.x * h.u, y: origin.y + dir.y * h.u })).toBeLessThan(1e-6);
 				}
 			})
+		);
+	});
+
+	it('on random outlines of lines and cubics every hit is on the curve and on the line, sorted by u', () => {
+		fc.assert(
+			fc.property(arbOutline, arbPoint(300), fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), (o, origin, ang) => {
+				const dir = { x: Math.cos(ang), y: Math.sin(ang) };
+				const hits = outlineLineIntersections(o, origin, dir);
+				for (let k = 0; k < hits.length; k++) {
+					const h = hits[k];
+					expect(vecDistance(h.point, segmentPointAt(o.segments[h.segmentIndex], h.t))).toBeLessThan(1e-9);
+					expect(vecDistance(h.point, { x: origin.x + dir.x * h.u, y: origin.y + dir.y * h.u })).toBeLessThan(1e-6);
+					if (k > 0) expect(h.u).toBeGreaterThanOrEqual(hits[k - 1].u);
+				}
+			}),
+			{ numRuns: 200 }
 		);
 	});
 
@@ -102,6 +119,49 @@ describe('segment against segment', () => {
 			expect(vecDistance(segmentPointAt(a, h.ta), h.point)).toBeLessThan(1e-7);
 			expect(vecDistance(segmentPointAt(b, h.tb), h.point)).toBeLessThan(1e-7);
 		}
+	});
+
+	// Reference: crossings of the two curves flattened at 1e-4 mm (line–line, closed form).
+	it('generic random cubic pairs: every hit is on both curves, every crossing of the flattened curves is found', () => {
+		let seed = 424242;
+		const rnd = (): number => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) * 200 - 100;
+		let found = 0;
+		for (let k = 0; k < 200; k++) {
+			const q = Array.from({ length: 8 }, () => ({ x: rnd(), y: rnd() }));
+			const a: CubicSegment = { kind: 'cubic', p0: q[0], p1: q[1], p2: q[2], p3: q[3] };
+			const b: CubicSegment = { kind: 'cubic', p0: q[4], p1: q[5], p2: q[6], p3: q[7] };
+			const hits = segmentIntersections(a, b);
+			found += hits.length;
+			for (const h of hits) {
+				expect(vecDistance(segmentPointAt(a, h.ta), h.point)).toBeLessThan(1e-6);
+				expect(vecDistance(segmentPointAt(b, h.tb), h.point)).toBeLessThan(1e-6);
+			}
+			const fa = pathFromPolyline(segmentFlatten(a, 1e-4));
+			const fb = pathFromPolyline(segmentFlatten(b, 1e-4));
+			for (const c of pathIntersections(fa, fb)) {
+				expect(Math.min(...hits.map((h) => vecDistance(h.point, c.point)))).toBeLessThan(0.05);
+			}
+		}
+		expect(found).toBeGreaterThan(50);
+	});
+
+	it('degenerate pairs (collinear, overlapping, point-like) return quickly with hits on both curves within 1e-3 mm', () => {
+		const arbSmall = fc.record({ x: fc.integer({ min: -3, max: 3 }), y: fc.constantFrom(0, 0, 0, 1) });
+		fc.assert(
+			fc.property(fc.array(arbSmall, { minLength: 8, maxLength: 8 }), (p) => {
+				const a: CubicSegment = { kind: 'cubic', p0: p[0], p1: p[1], p2: p[2], p3: p[3] };
+				const b: CubicSegment = { kind: 'cubic', p0: p[4], p1: p[5], p2: p[6], p3: p[7] };
+				const started = performance.now();
+				const hits = segmentIntersections(a, b);
+				expect(performance.now() - started).toBeLessThan(500);
+				expect(hits.length).toBeLessThanOrEqual(64);
+				for (const h of hits) {
+					expect(vecDistance(segmentPointAt(a, h.ta), h.point)).toBeLessThan(1e-3);
+					expect(vecDistance(segmentPointAt(b, h.tb), h.point)).toBeLessThan(1e-3);
+				}
+			}),
+			{ numRuns: 100 }
+		);
 	});
 
 	it('cubic–cubic agrees with line–cubic when one cubic is straight', () => {

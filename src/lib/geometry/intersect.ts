@@ -273,14 +273,16 @@ function ctrlBox(c: CubicSegment): Box {
 	};
 }
 
+/** Guards for overlapping (coincident) curves, whose intersection is a whole stretch, not points. */
 const MAX_SUBDIVISION_STEPS = 20000;
+const MAX_CANDIDATES = 64;
 
 function curveCurve(A: CubicSegment, B: CubicSegment, tol: number): SegmentPairHit[] {
 	const candidates: [number, number][] = [];
 	let steps = 0;
 	const leaf = Math.max(tol * 1000, 1e-5);
 	const rec = (a: CubicSegment, a0: number, a1: number, b: CubicSegment, b0: number, b1: number, depth: number): void => {
-		if (++steps > MAX_SUBDIVISION_STEPS) return;
+		if (++steps > MAX_SUBDIVISION_STEPS || candidates.length >= MAX_CANDIDATES) return;
 		const ba = ctrlBox(a);
 		const bb = ctrlBox(b);
 		if (ba.minX > bb.maxX + tol || bb.minX > ba.maxX + tol || ba.minY > bb.maxY + tol || bb.minY > ba.maxY + tol) return;

@@ -1,9 +1,12 @@
 import Flatten from '@flatten-js/core';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { outlineFlatten } from './flatten';
+import { outlineNearestPoint } from './nearest';
 import { outlineFromPolyline } from './path';
 import { outlineContainsPoint, outlineWindingNumber } from './point-in';
 import { outlineMirrorAcross } from './transform';
-import { bezierCircle, starPolygon } from './test-support/arbitraries';
+import { arbOutline, arbPoint, bezierCircle, starPolygon } from './test-support/arbitraries';
 
 describe('point in outline', () => {
 	// Reference library: @flatten-js/core 1.6.15, Polygon.contains(Point) on random star polygons.
@@ -30,6 +33,21 @@ describe('point in outline', () => {
 		expect(outlineContainsPoint(c, { x: 0, y: -100.01 })).toBe(false);
 		expect(outlineWindingNumber(c, { x: 0, y: 0 })).toBe(1);
 		expect(outlineWindingNumber(outlineMirrorAcross(c, { x: 0, y: 0 }, { x: 1, y: 0 }), { x: 0, y: 0 })).toBe(-1);
+	});
+
+	// Reference: the same outline flattened at 1e-4 mm, whose polygon winding is checked against
+	// @flatten-js/core above; points closer than 0.01 mm to the boundary are skipped.
+	it('exact-curve winding equals the winding of a tightly flattened copy on random outlines with cubics', () => {
+		fc.assert(
+			fc.property(arbOutline, fc.array(arbPoint(450), { minLength: 20, maxLength: 20 }), (o, pts) => {
+				const flat = outlineFromPolyline(outlineFlatten(o, 1e-4));
+				for (const p of pts) {
+					if (outlineNearestPoint(o, p).distance < 0.01) continue;
+					expect(outlineWindingNumber(o, p)).toBe(outlineWindingNumber(flat, p));
+				}
+			}),
+			{ numRuns: 60 }
+		);
 	});
 
 	it('evenodd and nonzero differ on a doubly wound outline', () => {
