@@ -189,6 +189,24 @@ describe('self-intersection', () => {
 		expect(outlineSelfIntersections(bezierCircle({ x: 0, y: 0 }, 50))).toEqual([]);
 	});
 
+	it('grid search finds the same crossings as testing every pair (random self-crossing polygons)', () => {
+		let seed = 777;
+		const rnd = (): number => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648) * 300;
+		for (let k = 0; k < 20; k++) {
+			const pts = Array.from({ length: 10 + k * 5 }, () => ({ x: rnd(), y: rnd() }));
+			const o = outlineFromPolyline(pts);
+			const n = o.segments.length;
+			let brute = 0;
+			for (let i = 0; i < n; i++) {
+				for (let j = i + 2; j < n; j++) {
+					if (i === 0 && j === n - 1) continue;
+					brute += segmentIntersections(o.segments[i], o.segments[j]).length;
+				}
+			}
+			expect(outlineSelfIntersections(o).length).toBe(brute);
+		}
+	});
+
 	it('a figure-eight crosses itself once, where the diagonals meet', () => {
 		const eight = outlineFromPolyline([{ x: 0, y: 0 }, { x: 100, y: 100 }, { x: 100, y: 0 }, { x: 0, y: 100 }]);
 		const hits = outlineSelfIntersections(eight);

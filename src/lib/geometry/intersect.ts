@@ -381,6 +381,51 @@ export function segmentSelfIntersection(s: Segment): SegmentPairHit[] {
 
 interface IndexedBox extends Box { i: number }
 
+/**
+ * Calls `visit` once for every pair of overlapping boxes, using a uniform grid (about one cell per
+ * box), so that the cost stays near-linear for outlines whose boxes are small relative to the whole.
+ */
+function boxPairs(boxes: readonly IndexedBox[], visit: (a: IndexedBox, b: IndexedBox) => void): void {
+	const n = boxes.length;
+	if (n < 2) return;
+	let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+	for (const b of boxes) {
+		if (b.minX < minX) minX = b.minX; if (b.minY < minY) minY = b.minY;
+		if (b.maxX > maxX) maxX = b.maxX; if (b.maxY > maxY) maxY = b.maxY;
+	}
+	const side = Math.max(1, Math.min(1024, Math.ceil(Math.sqrt(n))));
+	const cw = (maxX - minX) / side || 1;
+	const ch = (maxY - minY) / side || 1;
+	const col = (x: number): number => Math.min(side - 1, Math.max(0, Math.floor((x - minX) / cw)));
+	const row = (y: number): number => Math.min(side - 1, Math.max(0, Math.floor((y - minY) / ch)));
+	const cells: (IndexedBox[] | undefined)[] = new Array(side * side);
+	for (const b of boxes) {
+		const c0 = col(b.minX), c1 = col(b.maxX), r0 = row(b.minY), r1 = row(b.maxY);
+		for (let r = r0; r <= r1; r++) {
+			for (let c = c0; c <= c1; c++) {
+				const k = r * side + c;
+				(cells[k] ??= []).push(b);
+			}
+		}
+	}
+	for (let k = 0; k < cells.length; k++) {
+		const list = cells[k];
+		if (!list || list.length < 2) continue;
+		const r = Math.floor(k / side);
+		const c = k - r * side;
+		for (let u = 0; u < list.length; u++) {
+			const a = list[u];
+			for (let v = u + 1; v < list.length; v++) {
+				const b = list[v];
+				if (a.minX > b.maxX || b.minX > a.maxX || a.minY > b.maxY || b.minY > a.maxY) continue;
+				// visit the pair only in the cell holding the low corner of the overlap
+				if (col(Math.max(a.minX, b.minX)) !== c || row(Math.max(a.minY, b.minY)) !== r) continue;
+				visit(a, b);
+			}
+		}
+	}
+}
+
 function chainBoxes(chain: SegmentChain, margin: number): IndexedBox[] {
 	return chain.segments.map((s, i) => {
 		const b = s.kind === 'line'
@@ -418,7 +463,7 @@ export const outlinePathIntersections = pathIntersections;
 
 /**
  * Places where an outline crosses or touches itself (other than consecutive segments meeting at
- * their shared vertex). Sweep over segment bounding boxes, then exact segment–segment tests, plus
+ * their shared vertex). Uniform grid over segment bounding boxes, then exact segment–segment tests, plus
  * loops inside single cubics. `closed` = treat last and first segments as neighbours.
  */
 export function outlineSelfIntersections(chain: SegmentChain, closed = true, tolerance = INTERSECTION_TOLERANCE_MM, vertexTolerance = CLOSURE_TOLERANCE_MM): ChainHit[] {
@@ -428,13 +473,9 @@ export function outlineSelfIntersections(chain: SegmentChain, closed = true, tol
 	for (let i = 0; i < n; i++) {
 		for (const h of segmentSelfIntersection(segs[i])) out.push({ segmentIndex: i, t: h.ta, otherSegmentIndex: i, otherT: h.tb, point: h.point });
 	}
-	const boxes = chainBoxes(chain, tolerance).sort((p, q) => p.minX - q.minX);
-	for (let k = 0; k < boxes.length; k++) {
-		const x = boxes[k];
-		for (let m = k + 1; m < boxes.length; m++) {
-			const y = boxes[m];
-			if (y.minX > x.maxX) break;
-			if (y.minY > x.maxY || y.maxY < x.minY) continue;
+	const boxes = chainBoxes(chain, tolerance);
+	boxPairs(boxes, (x, y) => {
+		{
 			const i = Math.min(x.i, y.i);
 			const j = Math.max(x.i, y.i);
 			const nextOfI = j === i + 1;
@@ -452,7 +493,7 @@ export function outlineSelfIntersections(chain: SegmentChain, closed = true, tol
 				out.push({ segmentIndex: i, t: h.ta, otherSegmentIndex: j, otherT: h.tb, point: h.point });
 			}
 		}
-	}
+	});
 	out.sort((p, q) => p.segmentIndex - q.segmentIndex || p.t - q.t);
 	return out;
 }
