@@ -101,9 +101,17 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 	const ring: Vec[] = polys.flatMap((p) => p.slice(0, -1));
 	const sign = Math.sign(polygonSignedArea(ring)) || 1;
 	const outward = (t: Vec): Vec => (sign > 0 ? { x: t.y, y: -t.x } : { x: -t.y, y: t.x });
-	const subjects: IntPath[] = [oriented(toClipper(ring))];
 	const arcTolerance = ARC_TOLERANCE_MM * CLIPPER_SCALE;
 	const single = edges.length === 1;
+	if (single && edges[0].widthMm > 0) {
+		// one smooth closed edge: a closed offset with round joins is the whole cut line
+		const co = new ClipperLib.ClipperOffset(2, arcTolerance);
+		co.AddPath(oriented(toClipper(ring)), ClipperLib.JoinType.jtRound, ClipperLib.EndType.etClosedPolygon);
+		const out: ClipperLib.Paths = [];
+		co.Execute(out, edges[0].widthMm * CLIPPER_SCALE);
+		return finish(piece, edges, out, sign);
+	}
+	const subjects: IntPath[] = [oriented(toClipper(ring))];
 	for (let i = 0; i < edges.length; i++) {
 		const e = edges[i];
 		if (e.widthMm === 0) continue;
@@ -165,6 +173,10 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 		d.Execute(ClipperLib.ClipType.ctDifference, next, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
 		solution = next;
 	}
+	return finish(piece, edges, solution, sign);
+}
+
+function finish(piece: Piece, edges: (AllowanceEdge & { widthMm: number })[], solution: ClipperLib.Paths, sign: number): AllowanceResult {
 	const outer = solution.filter((p) => ClipperLib.Clipper.Orientation(p));
 	const holes = solution.length - outer.length;
 	if (outer.length !== 1 || holes > 0) {

@@ -150,14 +150,21 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	// 1. cut every panel along the style line
 	const parts: Part[] = [];
 	for (const panel of panels) {
+		const problems = pieceProblems(panel);
+		if (problems.length) return panelRefuse('invalid_piece', `${panel.name} has problems to fix first: ${problems[0]}`);
+	}
+	for (const panel of panels) {
 		const hits = pathIntersections(line, panel.outline).sort((p, q) => p.segmentIndex + p.t - (q.segmentIndex + q.t));
 		if (hits.length < 2) {
 			return panelRefuse('style_line_misses_panel', `The style line does not cross ${panel.name} from edge to edge; extend it across every panel.`);
 		}
+		if (hits.length > 2) {
+			return panelRefuse('style_line_misses_panel', `The style line crosses the edge of ${panel.name} ${hits.length} times; it must cross each panel once, edge to edge.`);
+		}
 		const first = hits[0];
 		const last = hits[hits.length - 1];
 		const cut = pathBetween(line, first, last);
-		const s = separate(panel, { path: cut, pieceIds: [`${panel.id}-1`, `${panel.id}-2`], notchFractions: [] });
+		const s = separate(panel, { path: cut, pieceIds: [`${panel.id}-1`, `${panel.id}-2`], notchFractions: [], pieceChecked: true, crossingsChecked: true });
 		if (!s.ok) return panelRefuse(s.error.code, `${panel.name}: ${s.error.message}`);
 		const [p1, p2] = s.pieces;
 		const cy = (q: Piece) => polygonCentroid(outlineFlatten(q.outline, 0.5)).y;

@@ -1,5 +1,5 @@
 import { outlineReverse, segmentMapPoints, type Vec } from '../kernel';
-import { resultProblems } from '../operation-result';
+import { panelPieceProblems } from './fast-checks';
 import type { Dart, LegSide, Piece, Pleat } from '../piece-schema';
 
 /** Piece-level helpers of the panel operations: move every point, reverse, check. */
@@ -74,9 +74,9 @@ export function pieceMirror(piece: Piece, f: (p: Vec) => Vec): Piece {
 	return pieceReverse(pieceMapPoints(piece, f));
 }
 
-/** Problems that make an operation refuse (kernel outline checks + piece structure). */
-export function pieceProblems(piece: Piece): string[] {
-	return resultProblems(piece);
+/** Problems that make an operation refuse (kernel outline checks + piece structure; see fast-checks.ts). */
+export function pieceProblems(piece: Piece, options: { selfIntersection?: boolean; newVertices?: readonly Vec[] } = {}): string[] {
+	return panelPieceProblems(piece, options);
 }
 
 export function rotateFn(center: Vec, angleRad: number): (p: Vec) => Vec {

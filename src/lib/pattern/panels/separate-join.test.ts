@@ -78,7 +78,8 @@ describe('separate then join', () => {
 				const s = separate(piece, { path: { segments: [seg] } });
 				if (!s.ok) {
 					// a curved line may leave a convex-ish piece near its ends: that must be a clear refusal
-					expect(['style_line_leaves_piece', 'style_line_off_outline', 'style_line_too_short']).toContain(s.error.code);
+					// (a cut grazing the outline that would touch it again is refused as a broken result)
+					expect(['style_line_leaves_piece', 'style_line_off_outline', 'style_line_too_short', 'result_broken']).toContain(s.error.code);
 					expect(s.error.message.length).toBeGreaterThan(10);
 					refused++;
 					return;
@@ -87,8 +88,7 @@ describe('separate then join', () => {
 				const areaBefore = outlineArea(piece.outline);
 				expect(outlineArea(a.outline) + outlineArea(b.outline)).toBeCloseTo(areaBefore, 6);
 				const j = join(s.pieces, s.seamPairs[0]);
-				expect(j.ok).toBe(true);
-				if (!j.ok) return;
+				if (!j.ok) throw new Error(`join refused: ${j.error.code}: ${j.error.message}`);
 				const back = j.pieces[0];
 				expect(Math.abs(outlineArea(back.outline) - areaBefore)).toBeLessThan(1e-6 * areaBefore);
 				expect(chainsDeviation(back.outline, piece.outline)).toBeLessThan(1e-3);

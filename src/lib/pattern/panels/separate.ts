@@ -1,7 +1,6 @@
 import {
 	outlineArea,
 	outlineFromChains,
-	outlineNearestPoint,
 	outlineSplitAt,
 	pathLength,
 	pathPointAtLength,
@@ -11,7 +10,7 @@ import {
 import { ledgerEntry, type LedgerEntry } from '../ledger';
 import { apexById, wedgeGeometry } from '../piece';
 import type { Notch, Piece } from '../piece-schema';
-import { dist, pathFirst } from './chain-tools';
+import { dist, pathFirst, pathLast } from './chain-tools';
 import { markingsForPart } from './markings-split';
 import { panelRefuse, panelReport, type PiecesResult, type SeamPair } from './panel-types';
 import { ON_LINE_MM, SEAM_SNAP_MM, STYLE_LINE_SNAP_MM } from './panel-tolerances';
@@ -26,6 +25,10 @@ import { styleLineOnOutline } from './style-line';
  * is refused.
  */
 
+/** Parts smaller than this are slivers, not pieces. */
+const MIN_PART_AREA_MM2 = 1;
+
+
 export interface SeparateParams {
 	/** Id of an internal line of the piece to cut along, or give `path`. */
 	readonly styleLineId?: string;
@@ -36,10 +39,14 @@ export interface SeparateParams {
 	/** Where match notches go along the cut, as fractions of its length (default one notch at 0.4). */
 	readonly notchFractions?: readonly number[];
 	readonly snapToleranceMm?: number;
+	/** The caller has already checked the piece (carry checks every panel once). */
+	readonly pieceChecked?: boolean;
+	/** The caller has already made sure the line crosses the outline only at its ends (carry). */
+	readonly crossingsChecked?: boolean;
 }
 
 export function separate(piece: Piece, params: SeparateParams): PiecesResult {
-	const before = pieceProblems(piece);
+	const before = params.pieceChecked ? [] : pieceProblems(piece);
 	if (before.length) return panelRefuse('invalid_piece', `The piece has problems to fix first: ${before[0]}`);
 	let raw: Path | undefined = params.path;
 	let lineId: string | undefined;
@@ -50,13 +57,13 @@ export function separate(piece: Piece, params: SeparateParams): PiecesResult {
 		lineId = line.id;
 	}
 	if (!raw) return panelRefuse('invalid_params', 'Give the style line to cut along (its id or a path).');
-	const checked = styleLineOnOutline(piece.outline, raw, params.snapToleranceMm ?? STYLE_LINE_SNAP_MM);
+	const checked = styleLineOnOutline(piece.outline, raw, params.snapToleranceMm ?? STYLE_LINE_SNAP_MM, params.crossingsChecked ?? false);
 	if (!checked.ok) return checked;
 	const cut = checked.path;
 	const S = pathFirst(cut);
-	const locS = outlineNearestPoint(piece.outline, S);
-	const endPoint = pathPointAtLength(cut, pathLength(cut)).point;
-	const locE = outlineNearestPoint(piece.outline, endPoint);
+	const locS = { ...checked.startAt, point: S };
+	const endPoint = pathLast(cut);
+	const locE = { ...checked.endAt, point: endPoint };
 
 	// darts: an end on a leg (not at a leg end or at the apex) cuts the wedge open
 	for (const d of piece.darts) {
@@ -115,9 +122,15 @@ export function separate(piece: Piece, params: SeparateParams): PiecesResult {
 	}
 	const a: Piece = { ...piece, ...partA, id: idA, name: nameA, outline: outlineA, notches: [...partA.notches, ...cutNotches] };
 	const b: Piece = { ...piece, ...partB, id: idB, name: nameB, outline: outlineB, notches: [...partB.notches, ...cutNotches] };
+	// Both parts are checked in full: a cut grazing the outline near its end can touch it again.
 	for (const p of [a, b]) {
 		const problems = pieceProblems(p);
 		if (problems.length) return panelRefuse('result_broken', `This cut would give a broken piece, so nothing was changed: ${problems[0]}`);
+	}
+	const areaA = outlineArea(outlineA);
+	const areaB = outlineArea(outlineB);
+	if (Math.min(areaA, areaB) < MIN_PART_AREA_MM2) {
+		return panelRefuse('style_line_leaves_piece', `This cut would leave a sliver of ${Math.min(areaA, areaB).toFixed(2)} mm²; draw the style line across the piece.`);
 	}
 	const seamPair: SeamPair = {
 		id: pairId,
@@ -127,8 +140,6 @@ export function separate(piece: Piece, params: SeparateParams): PiecesResult {
 		toleranceMm: SEAM_SNAP_MM
 	};
 	const areaBefore = outlineArea(piece.outline);
-	const areaA = outlineArea(outlineA);
-	const areaB = outlineArea(outlineB);
 	return {
 		ok: true,
 		pieces: [a, b],

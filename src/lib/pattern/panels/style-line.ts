@@ -6,12 +6,13 @@ import {
 	pathPointAtLength,
 	type Outline,
 	type Path,
+	type SegmentLocation,
 	type Vec
 } from '../kernel';
 import type { Piece } from '../piece-schema';
 import { dist, pathFirst, pathLast, pathWithEnds } from './chain-tools';
 import { panelRefuse, panelReport, type PanelFailure, type PieceResult } from './panel-types';
-import { MIN_STYLE_LINE_MM, ON_LINE_MM, STYLE_LINE_SNAP_MM, VERTEX_SNAP_MM } from './panel-tolerances';
+import { MIN_STYLE_LINE_MM, ON_LINE_MM, SEAM_SNAP_MM, STYLE_LINE_SNAP_MM, VERTEX_SNAP_MM } from './panel-tolerances';
 import { pieceProblems } from './piece-tools';
 
 /**
@@ -30,24 +31,33 @@ export interface StyleLineParams {
 export interface CheckedStyleLine {
 	readonly ok: true;
 	readonly path: Path;
+	/** Where the snapped ends are on the outline. */
+	readonly startAt: SegmentLocation;
+	readonly endAt: SegmentLocation;
 	readonly startSnapMm: number;
 	readonly endSnapMm: number;
 }
 
 /** An end this close to an outline vertex is moved onto it (no sliver segments at the cut). */
-function snapToVertex(outline: Outline, n: { segmentIndex: number; point: Vec }): Vec {
+function snapToVertex(outline: Outline, n: { segmentIndex: number; t: number; point: Vec }): Vec {
+	return snappedLocation(outline, n).point;
+}
+
+function snappedLocation(outline: Outline, n: { segmentIndex: number; t: number; point: Vec }): { segmentIndex: number; t: number; point: Vec } {
 	const s = outline.segments[n.segmentIndex];
 	const end = s.kind === 'line' ? s.p1 : s.p3;
-	if (dist(n.point, s.p0) <= VERTEX_SNAP_MM) return s.p0;
-	if (dist(n.point, end) <= VERTEX_SNAP_MM) return end;
-	return n.point;
+	if (dist(n.point, s.p0) <= VERTEX_SNAP_MM) return { segmentIndex: n.segmentIndex, t: 0, point: s.p0 };
+	if (dist(n.point, end) <= VERTEX_SNAP_MM) return { segmentIndex: n.segmentIndex, t: 1, point: end };
+	return n;
 }
 
 /** Snap a style line's ends onto an outline and check it runs inside it. Shared by separate and carry. */
 export function styleLineOnOutline(
 	outline: Outline,
 	path: Path,
-	snapToleranceMm = STYLE_LINE_SNAP_MM
+	snapToleranceMm = STYLE_LINE_SNAP_MM,
+	/** The caller has already made sure the line crosses the outline only at its ends (carry). */
+	crossingsChecked = false
 ): CheckedStyleLine | PanelFailure {
 	if (path.segments.length === 0) return panelRefuse('invalid_params', 'The style line has no segments.');
 	const length = pathLength(path);
@@ -68,8 +78,11 @@ export function styleLineOnOutline(
 		return panelRefuse('style_line_off_outline', 'Both ends of the style line are at the same place on the outline.');
 	}
 	const snapped = pathWithEnds(path, snapToVertex(outline, a), snapToVertex(outline, b));
-	const ends = [a.point, b.point];
-	const crossings = pathIntersections(snapped, outline).filter((h) => ends.every((e) => dist(e, h.point) > 0.01));
+	const ends = [snapToVertex(outline, a), snapToVertex(outline, b)];
+	const startAt = snappedLocation(outline, a);
+	const endAt = snappedLocation(outline, b);
+	if (crossingsChecked) return { ok: true, path: snapped, startAt, endAt, startSnapMm: a.distance, endSnapMm: b.distance };
+	const crossings = pathIntersections(snapped, outline).filter((h) => ends.every((e) => dist(e, h.point) > VERTEX_SNAP_MM + 0.01));
 	if (crossings.length > 0) {
 		const p = crossings[0].point;
 		return panelRefuse(
@@ -78,13 +91,16 @@ export function styleLineOnOutline(
 		);
 	}
 	const total = pathLength(snapped);
-	for (const f of [0.1, 0.3, 0.5, 0.7, 0.9]) {
-		const q = pathPointAtLength(snapped, f * total).point;
-		if (!outlineContainsPoint(outline, q) || outlineNearestPoint(outline, q).distance <= ON_LINE_MM) {
-			return panelRefuse('style_line_leaves_piece', 'The style line runs outside the piece (or along its edge) between its ends.');
+	for (const f of [0.25, 0.5, 0.75]) {
+		if (!outlineContainsPoint(outline, pathPointAtLength(snapped, f * total).point)) {
+			return panelRefuse('style_line_leaves_piece', 'The style line runs outside the piece between its ends.');
 		}
 	}
-	return { ok: true, path: snapped, startSnapMm: a.distance, endSnapMm: b.distance };
+	// a line lying along the edge is not inside either
+	if (outlineNearestPoint(outline, pathPointAtLength(snapped, total / 2).point).distance <= SEAM_SNAP_MM) {
+		return panelRefuse('style_line_leaves_piece', 'The style line runs along the edge of the piece, not across it.');
+	}
+	return { ok: true, path: snapped, startAt, endAt, startSnapMm: a.distance, endSnapMm: b.distance };
 }
 
 /** Add a style line to a piece as an internal line. */

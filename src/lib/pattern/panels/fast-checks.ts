@@ -1,0 +1,177 @@
+import { outlineClosureProblems, outlineShortSegmentProblems, type Outline, type Vec } from '../kernel';
+import { resultProblems } from '../operation-result';
+import { pieceStructureProblems } from '../piece';
+import type { Piece } from '../piece-schema';
+
+/**
+ * The finished-piece check used by the panel operations. Outlines with curves, or with few segments,
+ * go through the kernel's outlineProblems (via ../operation-result resultProblems). Large all-straight
+ * outlines (digitised or flattened pieces, hundreds to tens of thousands of vertices) are checked the
+ * same way — closure, segment length, self-intersection, piece structure — but the self-intersection
+ * search uses a uniform grid instead of the kernel's sweep, so it stays linear in the vertex count.
+ * Touching at an apex is allowed, as in resultProblems.
+ */
+
+const GRID_FROM_SEGMENTS = 400;
+
+export function panelPieceProblems(piece: Piece, options: { selfIntersection?: boolean; newVertices?: readonly Vec[] } = {}): string[] {
+	const segs = piece.outline.segments;
+	if (options.selfIntersection === false && options.newVertices) {
+		// a part cut from a checked piece: only the segments at the new vertices can be too short
+		const near = (p: Vec) => options.newVertices!.some((v) => Math.abs(v.x - p.x) + Math.abs(v.y - p.y) < 1e-6);
+		const touched = { segments: segs.filter((s) => near(s.p0) || near(s.kind === 'line' ? s.p1 : s.p3)) };
+		return [
+			...outlineShortSegmentProblems(touched).map((p) => p.message.replace(/Segment \d+/, 'A segment at the cut')),
+			...structureProblems(piece)
+		];
+	}
+	if (options.selfIntersection === false) {
+		return [
+			...outlineClosureProblems(piece.outline).map((p) => p.message),
+			...outlineShortSegmentProblems(piece.outline).map((p) => p.message),
+			...pieceStructureProblems(piece)
+		];
+	}
+	const cached = fullCheckCache.get(piece);
+	if (cached) return cached;
+	const problems = fullProblems(piece);
+	fullCheckCache.set(piece, problems);
+	return problems;
+}
+
+/**
+ * Pieces are immutable data: the full check of one piece object is kept (weakly) and reused, e.g. while
+ * a style line is dragged across unchanged panels.
+ */
+const fullCheckCache = new WeakMap<Piece, string[]>();
+
+function fullProblems(piece: Piece): string[] {
+	const segs = piece.outline.segments;
+	if (segs.length < GRID_FROM_SEGMENTS || segs.some((s) => s.kind !== 'line')) return resultProblems(piece);
+	const apexes = piece.apexes.map((a) => a.point);
+	const crossing = gridSelfIntersection(piece.outline).filter((p) => !apexes.some((a) => Math.hypot(a.x - p.x, a.y - p.y) < 1e-3));
+	return [
+		...outlineClosureProblems(piece.outline).map((p) => p.message),
+		...outlineShortSegmentProblems(piece.outline).map((p) => p.message),
+		...crossing.slice(0, 1).map((p) => `The outline crosses itself at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}) mm.`),
+		...structureProblems(piece)
+	];
+}
+
+/** pieceStructureProblems, skipped when there is nothing it could find beyond closure (checked apart). */
+function structureProblems(piece: Piece): string[] {
+	if (piece.darts.length || piece.pleats.length) return pieceStructureProblems(piece);
+	const ids = new Set<string>();
+	const out: string[] = [];
+	for (const a of piece.apexes) {
+		if (ids.has(a.id)) out.push(`apex id "${a.id}" is used twice`);
+		ids.add(a.id);
+	}
+	return out;
+}
+
+/** Points where a closed all-straight outline crosses or touches itself (non-neighbouring segments). */
+export function gridSelfIntersection(outline: Outline): Vec[] {
+	const segs = outline.segments as readonly { p0: Vec; p1: Vec }[];
+	const n = segs.length;
+	let minX = Infinity;
+	let minY = Infinity;
+	let maxX = -Infinity;
+	let maxY = -Infinity;
+	let total = 0;
+	for (const s of segs) {
+		minX = Math.min(minX, s.p0.x, s.p1.x);
+		maxX = Math.max(maxX, s.p0.x, s.p1.x);
+		minY = Math.min(minY, s.p0.y, s.p1.y);
+		maxY = Math.max(maxY, s.p0.y, s.p1.y);
+		total += Math.hypot(s.p1.x - s.p0.x, s.p1.y - s.p0.y);
+	}
+	const cell = Math.max((2 * total) / n, 1e-6);
+	const nx = Math.max(1, Math.ceil((maxX - minX) / cell) + 3);
+	const eps = 1e-9;
+	// (cell key, segment) pairs packed in one float and sorted natively: runs of equal keys are the cells
+	let packed = new Float64Array(Math.max(16, 2 * n));
+	let m = 0;
+	const SEG = 2 ** 24;
+	const push = (key: number, i: number) => {
+		if (m === packed.length) {
+			const grown = new Float64Array(packed.length * 2);
+			grown.set(packed);
+			packed = grown;
+		}
+		packed[m++] = key * SEG + i;
+	};
+	for (let i = 0; i < n; i++) {
+		const s = segs[i];
+		// long segments are walked in cell-sized pieces so only the cells along them are visited
+		const len = Math.hypot(s.p1.x - s.p0.x, s.p1.y - s.p0.y);
+		const k = Math.max(1, Math.ceil(len / cell));
+		let last = -1;
+		for (let q = 0; q < k; q++) {
+			const ax = s.p0.x + ((s.p1.x - s.p0.x) * q) / k;
+			const ay = s.p0.y + ((s.p1.y - s.p0.y) * q) / k;
+			const bx = s.p0.x + ((s.p1.x - s.p0.x) * (q + 1)) / k;
+			const by = s.p0.y + ((s.p1.y - s.p0.y) * (q + 1)) / k;
+			const x0 = Math.floor((Math.min(ax, bx) - minX - eps) / cell) + 1;
+			const x1 = Math.floor((Math.max(ax, bx) - minX + eps) / cell) + 1;
+			const y0 = Math.floor((Math.min(ay, by) - minY - eps) / cell) + 1;
+			const y1 = Math.floor((Math.max(ay, by) - minY + eps) / cell) + 1;
+			for (let gx = x0; gx <= x1; gx++) {
+				for (let gy = y0; gy <= y1; gy++) {
+					const key = gy * nx + gx;
+					if (key !== last) push(key, i);
+					last = key;
+				}
+			}
+		}
+	}
+	const sorted = packed.subarray(0, m).sort();
+	const out: Vec[] = [];
+	const seen = new Set<number>();
+	let start = 0;
+	while (start < m) {
+		const key = Math.floor(sorted[start] / SEG);
+		let end = start + 1;
+		while (end < m && Math.floor(sorted[end] / SEG) === key) end++;
+		for (let a = start; a < end; a++) {
+			const ia = sorted[a] - key * SEG;
+			for (let b = a + 1; b < end; b++) {
+				const ib = sorted[b] - key * SEG;
+				const i = Math.min(ia, ib);
+				const j = Math.max(ia, ib);
+				if (i === j || j - i === 1 || (i === 0 && j === n - 1)) continue;
+				const p = segmentsTouch(segs[i].p0, segs[i].p1, segs[j].p0, segs[j].p1);
+				if (!p) continue;
+				const pk = i * n + j;
+				if (seen.has(pk)) continue;
+				seen.add(pk);
+				out.push(p);
+			}
+		}
+		start = end;
+	}
+	return out;
+}
+
+function segmentsTouch(a: Vec, b: Vec, c: Vec, d: Vec): Vec | null {
+	const r = { x: b.x - a.x, y: b.y - a.y };
+	const s = { x: d.x - c.x, y: d.y - c.y };
+	const den = r.x * s.y - r.y * s.x;
+	const qp = { x: c.x - a.x, y: c.y - a.y };
+	const scale = Math.hypot(r.x, r.y) * Math.hypot(s.x, s.y);
+	if (Math.abs(den) <= 1e-12 * scale) {
+		// parallel: touching only if collinear and overlapping
+		if (Math.abs(qp.x * r.y - qp.y * r.x) > 1e-9 * Math.hypot(r.x, r.y)) return null;
+		const rr = r.x * r.x + r.y * r.y;
+		const t0 = (qp.x * r.x + qp.y * r.y) / rr;
+		const t1 = t0 + (s.x * r.x + s.y * r.y) / rr;
+		const lo = Math.max(0, Math.min(t0, t1));
+		const hi = Math.min(1, Math.max(t0, t1));
+		return lo <= hi ? { x: a.x + lo * r.x, y: a.y + lo * r.y } : null;
+	}
+	const t = (qp.x * s.y - qp.y * s.x) / den;
+	const u = (qp.x * r.y - qp.y * r.x) / den;
+	const e = 1e-12;
+	if (t < -e || t > 1 + e || u < -e || u > 1 + e) return null;
+	return { x: a.x + t * r.x, y: a.y + t * r.y };
+}
