@@ -45,6 +45,13 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/members': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/compare': { GET: ALL_ROLES },
+	// measurement sets (editors create, edit and draft; everyone in the studio views)
+	'/studios/[studioId]/measurements': { GET: ALL_ROLES },
+	'/studios/[studioId]/measurements/new': { GET: EDITORS, POST: EDITORS },
+	'/studios/[studioId]/measurements/compare': { GET: ALL_ROLES },
+	'/studios/[studioId]/measurements/[setId]': { GET: ALL_ROLES, POST: EDITORS },
+	'/studios/[studioId]/measurements/[setId]/edit': { GET: EDITORS, POST: EDITORS },
+	'/studios/[studioId]/styles/new': { GET: EDITORS, POST: EDITORS },
 	// JSON API
 	'/api/me': { GET: 'signed_in' },
 	'/api/studios': { GET: 'signed_in', POST: 'signed_in' },
@@ -63,7 +70,10 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state': { POST: EDITORS_AND_SIGNERS },
 	'/api/studios/[studioId]/pieces/[pieceId]/compare': { GET: ALL_ROLES },
-	'/api/studios/[studioId]/pieces/[pieceId]/export.svg': { GET: ALL_ROLES }
+	'/api/studios/[studioId]/pieces/[pieceId]/export.svg': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/measurement-sets': { GET: ALL_ROLES, POST: EDITORS },
+	'/api/studios/[studioId]/measurement-sets/[setId]': { GET: ALL_ROLES, PATCH: EDITORS, DELETE: EDITORS },
+	'/api/studios/[studioId]/measurement-sets/[setId]/duplicate': { POST: EDITORS }
 };
 
 export type Lookup =

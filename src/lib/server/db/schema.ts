@@ -141,3 +141,16 @@ export interface Database {
 	piece_versions: PieceVersionsTable;
 	seam_pairs: SeamPairsTable;
 }
+
+/**
+ * Columns added by migration 2026-12-01-0020 (measurement set charts). Declared by interface merging
+ * so the table above stays as it was written.
+ */
+export interface MeasurementSetsTable {
+	/** Stable key of a seeded chart row, e.g. "astm-d5585/curvy/12"; null for sets made by people. */
+	chart_key: ColumnType<string | null, string | null | undefined, string | null>;
+	/** The chart's source as data ({ standard, table, size, variant }); null for client sets. */
+	chart_source: ColumnType<unknown, string | null | undefined, string | null>;
+	sort_order: Generated<number>;
+	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}

@@ -2,6 +2,7 @@ import demo from '../../../../fixtures/demo-studio.json';
 import type { Db } from '../db';
 import type { Role } from '../db/schema';
 import { passwordHash } from '../auth/password';
+import { measurementChartsSeed } from '../measurements/charts';
 import { membershipsAddIfAbsent, membershipsForUser } from '../repositories/memberships';
 import { studiosCreate } from '../repositories/studios';
 import { usersByEmail, usersCreate } from '../repositories/users';
@@ -26,6 +27,8 @@ export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
 			const user = (await usersByEmail(tx, spec.email)) ?? (await usersCreate(tx, { ...spec, passwordHash: hash }));
 			await membershipsAddIfAbsent(tx, { studioId, userId: user.id, role: spec.role as Role });
 		}
+		// The published size charts (read-only, idempotent: existing chart rows are kept).
+		await measurementChartsSeed(tx, studioId);
 		return { studioId, created: !existing };
 	});
 }
