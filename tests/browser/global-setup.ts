@@ -37,7 +37,8 @@ export default async function setup(project: TestProject) {
 	const env = { ...process.env, DATABASE_URL: databaseUrl };
 	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
 		env: { ...env, MAIL_DEV_SMTP_PORT: String(smtpPort), MAIL_DEV_HTTP_PORT: String(inboxPort) },
-		stdio: ['ignore', 'inherit', 'inherit']
+		stdio: ['ignore', 'inherit', 'inherit'],
+		detached: true // its own process group, so teardown ends npx and the server under it
 	});
 	const app = spawn('node', ['build'], {
 		env: {
@@ -61,7 +62,13 @@ export default async function setup(project: TestProject) {
 	project.provide('databaseUrl', databaseUrl);
 	return async () => {
 		app.kill('SIGTERM');
-		mail.kill('SIGTERM');
+		if (mail.pid) {
+			try {
+				process.kill(-mail.pid, 'SIGTERM');
+			} catch {
+				/* already gone */
+			}
+		}
 	};
 }
 
