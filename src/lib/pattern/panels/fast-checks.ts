@@ -14,17 +14,8 @@ import type { Piece } from '../piece-schema';
 
 const GRID_FROM_SEGMENTS = 400;
 
-export function panelPieceProblems(piece: Piece, options: { selfIntersection?: boolean; newVertices?: readonly Vec[] } = {}): string[] {
+export function panelPieceProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
 	const segs = piece.outline.segments;
-	if (options.selfIntersection === false && options.newVertices) {
-		// a part cut from a checked piece: only the segments at the new vertices can be too short
-		const near = (p: Vec) => options.newVertices!.some((v) => Math.abs(v.x - p.x) + Math.abs(v.y - p.y) < 1e-6);
-		const touched = { segments: segs.filter((s) => near(s.p0) || near(s.kind === 'line' ? s.p1 : s.p3)) };
-		return [
-			...outlineShortSegmentProblems(touched).map((p) => p.message.replace(/Segment \d+/, 'A segment at the cut')),
-			...structureProblems(piece)
-		];
-	}
 	if (options.selfIntersection === false) {
 		return [
 			...outlineClosureProblems(piece.outline).map((p) => p.message),

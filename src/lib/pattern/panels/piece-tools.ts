@@ -75,7 +75,7 @@ export function pieceMirror(piece: Piece, f: (p: Vec) => Vec): Piece {
 }
 
 /** Problems that make an operation refuse (kernel outline checks + piece structure; see fast-checks.ts). */
-export function pieceProblems(piece: Piece, options: { selfIntersection?: boolean; newVertices?: readonly Vec[] } = {}): string[] {
+export function pieceProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
 	return panelPieceProblems(piece, options);
 }
 
