@@ -29,7 +29,8 @@ export type OperationErrorCode =
 	| 'result_broken';
 
 export interface OperationError {
-	readonly code: OperationErrorCode;
+	/** One of OperationErrorCode, or a panel operation's code (panels/panel-types.ts). */
+	readonly code: OperationErrorCode | (string & {});
 	readonly message: string;
 }
 

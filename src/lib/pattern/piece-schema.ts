@@ -134,6 +134,18 @@ export const labelSchema = z.object({
 
 export const cutInstructionSchema = z.enum(['pair', 'single', 'on_fold']);
 
+/**
+ * Seam allowance added last (trade-primer §9): the widths asked for and the cut line they give. The
+ * outline stays the net stitching line. Any later change of the outline drops it (it must be added again).
+ */
+export const seamAllowanceSchema = z.object({
+	defaultWidthMm: finite(),
+	widthsMm: z.record(z.string(), finite()).default({}),
+	corners: z.record(z.string(), z.enum(['mitre', 'square'])).default({}),
+	defaultCorner: z.enum(['mitre', 'square']).default('mitre'),
+	cutLine: outlineSchema
+});
+
 export const pieceSchema = z.object({
 	schemaVersion: z.literal(1),
 	id: idSchema,
@@ -145,6 +157,7 @@ export const pieceSchema = z.object({
 	notches: z.array(notchSchema).readonly().default([]),
 	grainline: grainlineSchema.nullable().default(null),
 	foldLine: lineMarkSchema.nullable().default(null),
+	seamAllowance: seamAllowanceSchema.nullable().default(null),
 	internalLines: z.array(internalLineSchema).readonly().default([]),
 	drillHoles: z.array(drillHoleSchema).readonly().default([]),
 	labels: z.array(labelSchema).readonly().default([]),
@@ -166,6 +179,7 @@ export type InternalLine = z.infer<typeof internalLineSchema>;
 export type DrillHole = z.infer<typeof drillHoleSchema>;
 export type PieceLabel = z.infer<typeof labelSchema>;
 export type CutInstruction = z.infer<typeof cutInstructionSchema>;
+export type SeamAllowance = z.infer<typeof seamAllowanceSchema>;
 /** A piece after parsing (defaults filled). */
 export type Piece = z.infer<typeof pieceSchema>;
 /** A piece as accepted by the parser (defaults optional). */

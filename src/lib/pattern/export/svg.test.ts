@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { SVGPathData } from 'svg-pathdata';
 import { outlineArea } from '../kernel';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
+import { recipeReplayStep } from '../verify/replay';
 import { pieceSvg, styleSvg } from './svg';
 
 const meta = { styleName: 'Juniper bodice', styleCode: 'LR-101', sizeLabel: 'ASTM D5585 misses 8', versionNumber: 3 };
@@ -61,6 +62,18 @@ describe('SVG export at true scale', () => {
 		const d = /<g id="cut-line"[^>]*><path d="([^"]+)"/.exec(svg)![1];
 		const area = svgPathArea(d);
 		expect(Math.abs(area - outlineArea(piece.outline)) / outlineArea(piece.outline)).toBeLessThan(0.001);
+	});
+
+	it('draws the cut line from the seam allowance when one was added, and says so', () => {
+		const r = recipeReplayStep(piece, { op: 'allowance', params: { defaultWidthMm: 10 } });
+		if (!r.ok) throw new Error(r.error.message);
+		const cutLine = r.piece.seamAllowance!.cutLine;
+		const withAllowance = pieceSvg(r.piece, meta);
+		const d = /<g id="cut-line"[^>]*><path d="([^"]+)"/.exec(withAllowance)![1];
+		expect(Math.abs(svgPathArea(d) - outlineArea(cutLine)) / outlineArea(cutLine)).toBeLessThan(0.001);
+		expect(outlineArea(cutLine)).toBeGreaterThan(outlineArea(piece.outline));
+		expect(withAllowance).toContain('seam allowance included (10 mm');
+		expect(svg).toContain('net pattern: no seam allowance');
 	});
 
 	it('has one group per layer and the labels a sample room needs', () => {

@@ -52,9 +52,8 @@ export function cutInstructionText(cut: Piece['cut']): string {
 /** The layers of one piece, as SVG groups in piece coordinates (mm). */
 function pieceLayers(piece: Piece, meta: SvgExportMeta, labelAt: Vec): string {
 	const layers: string[] = [];
-	layers.push(
-		`<g id="cut-line" fill="none" stroke="#1F2A37" stroke-width="0.5"><path d="${svgPathData(piece.outline, true)}"/></g>`
-	);
+	const cut = piece.seamAllowance?.cutLine ?? piece.outline;
+	layers.push(`<g id="cut-line" fill="none" stroke="#1F2A37" stroke-width="0.5"><path d="${svgPathData(cut, true)}"/></g>`);
 	layers.push(
 		`<g id="stitching-line" fill="none" stroke="#1F2A37" stroke-width="0.3" stroke-dasharray="2 1.5"><path d="${svgPathData(piece.outline, true)}"/></g>`
 	);
@@ -91,6 +90,9 @@ function pieceLayers(piece: Piece, meta: SvgExportMeta, labelAt: Vec): string {
 		piece.name,
 		meta.sizeLabel,
 		cutInstructionText(piece.cut),
+		piece.seamAllowance
+			? `seam allowance included (${piece.seamAllowance.defaultWidthMm} mm unless marked)`
+			: 'net pattern: no seam allowance',
 		`version ${meta.versionNumber}`
 	];
 	const label = texts
@@ -127,7 +129,7 @@ function testSquare(at: Vec): string {
 
 /** One piece at true scale: width/height in mm and a viewBox in mm, one group per layer. */
 export function pieceSvg(piece: Piece, meta: SvgExportMeta): string {
-	const b = pathBoundingBox(piece.outline);
+	const b = pathBoundingBox(piece.seamAllowance?.cutLine ?? piece.outline);
 	const x = b.minX - SVG_MARGIN_MM;
 	const y = b.minY - SVG_MARGIN_MM;
 	const w = b.maxX - b.minX + 2 * SVG_MARGIN_MM + 60;
@@ -142,7 +144,7 @@ export function styleSvg(pieces: readonly { piece: Piece; meta: SvgExportMeta }[
 	let height = 80;
 	const groups: string[] = [];
 	for (const { piece, meta } of pieces) {
-		const b = pathBoundingBox(piece.outline);
+		const b = pathBoundingBox(piece.seamAllowance?.cutLine ?? piece.outline);
 		const dx = cursor - b.minX;
 		const dy = -b.minY;
 		groups.push(

@@ -58,6 +58,8 @@ export function markingsForPart(piece: Piece, outline: Outline, dropInternalLine
 		grainline: grainlineForPart(piece.grainline, outline),
 		foldLine:
 			piece.foldLine && onOrInside(outline, piece.foldLine.from) && onOrInside(outline, piece.foldLine.to) ? piece.foldLine : null,
+		// a changed stitching line: any seam allowance must be added again
+		seamAllowance: null,
 		internalLines,
 		drillHoles: piece.drillHoles.filter((h) => outlineContainsPoint(outline, h.at)),
 		labels: piece.labels.filter((l) => outlineContainsPoint(outline, l.at))

@@ -60,6 +60,8 @@ export function mergeMarkings(a: Piece, b: Piece, outline: Outline): Omit<Piece,
 		notches: uniq(notchesA, notchesB),
 		grainline: a.grainline ?? b.grainline,
 		foldLine: foldOf(a) ?? foldOf(b),
+		// a changed stitching line: any seam allowance must be added again
+		seamAllowance: null,
 		internalLines: uniq(a.internalLines, b.internalLines),
 		drillHoles: uniq(a.drillHoles, b.drillHoles),
 		labels: uniq(a.labels, b.labels)
