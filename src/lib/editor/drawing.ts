@@ -1,0 +1,151 @@
+import ClipperLib from 'clipper-lib';
+import {
+	outlineContainsPoint,
+	outlineFlatten,
+	outlineNearestPoint,
+	pathBoundingBox,
+	pathFlatten,
+	pathNormalAt,
+	pointsBoundingBox,
+	vecAdd,
+	vecLerp,
+	vecNormalize,
+	vecPerp,
+	vecScale,
+	vecSub,
+	type BoundingBox,
+	type Vec
+} from '$lib/geometry';
+import type { Piece } from '$lib/pattern/piece-schema';
+
+/**
+ * What the canvas draws for one piece, computed once per piece value (pieces are immutable), in the
+ * piece's own millimetres. Polylines come from the kernel's flattening: drawing only, never measuring.
+ */
+
+/** Allowance shown around the stitching line when drawing the cut line (display only). */
+export const DISPLAY_ALLOWANCE_MM = 10;
+/** Clipper works on integers: coordinates in µm (mm × 1000). */
+const CLIPPER_SCALE = 1000;
+/** Flattening tolerance for the screen (mm). */
+const DRAW_TOLERANCE_MM = 0.1;
+
+export interface Arrow {
+	readonly from: Vec;
+	readonly to: Vec;
+	readonly heads: 'both' | 'one';
+}
+
+export interface PieceDrawing {
+	readonly bbox: BoundingBox;
+	/** Bounding box including the cut line. */
+	readonly outerBox: BoundingBox;
+	readonly stitch: readonly Vec[];
+	readonly cut: readonly (readonly Vec[])[];
+	readonly internal: readonly (readonly Vec[])[];
+	/** Thin ink marks: notches, dart centre lines, pleat lines, sewn legs, caps. */
+	readonly marks: readonly (readonly Vec[])[];
+	/** Dotted marks: dart centre lines. */
+	readonly dotted: readonly (readonly Vec[])[];
+	readonly arrows: readonly Arrow[];
+	readonly foldLine: readonly Vec[] | null;
+	readonly apexes: readonly Vec[];
+	readonly drill: readonly Vec[];
+	readonly labels: readonly { text: string; at: Vec; angleRad: number }[];
+	readonly title: { text: string; at: Vec };
+	readonly vertexCount: number;
+}
+
+const cache = new WeakMap<Piece, PieceDrawing>();
+
+export function pieceDrawing(piece: Piece): PieceDrawing {
+	let d = cache.get(piece);
+	if (!d) {
+		d = buildDrawing(piece);
+		cache.set(piece, d);
+	}
+	return d;
+}
+
+function cutLine(points: readonly Vec[]): Vec[][] {
+	try {
+		const path = points.map((p) => ({ X: Math.round(p.x * CLIPPER_SCALE), Y: Math.round(p.y * CLIPPER_SCALE) }));
+		const co = new ClipperLib.ClipperOffset(2, 0.05 * CLIPPER_SCALE);
+		co.AddPath(path, ClipperLib.JoinType.jtMiter, ClipperLib.EndType.etClosedPolygon);
+		const out: ClipperLib.Paths = [];
+		co.Execute(out, DISPLAY_ALLOWANCE_MM * CLIPPER_SCALE);
+		return out.map((poly) => poly.map((q) => ({ x: q.X / CLIPPER_SCALE, y: q.Y / CLIPPER_SCALE })));
+	} catch {
+		return [];
+	}
+}
+
+function notchMarks(piece: Piece): Vec[][] {
+	const out: Vec[][] = [];
+	for (const n of piece.notches) {
+		const near = outlineNearestPoint(piece.outline, n.at);
+		let normal = pathNormalAt(piece.outline, near);
+		if (outlineContainsPoint(piece.outline, vecAdd(near.point, vecScale(normal, 1)))) normal = vecScale(normal, 1);
+		else normal = vecScale(normal, -1);
+		const along = vecPerp(normal);
+		const offsets = n.count === 2 ? [-1.5, 1.5] : [0];
+		for (const o of offsets) {
+			const a = vecAdd(near.point, vecScale(along, o));
+			out.push([vecAdd(a, vecScale(normal, -DISPLAY_ALLOWANCE_MM * 0.6)), vecAdd(a, vecScale(normal, 5))]);
+		}
+	}
+	return out;
+}
+
+function buildDrawing(piece: Piece): PieceDrawing {
+	const stitch = outlineFlatten(piece.outline, DRAW_TOLERANCE_MM);
+	const bbox = pathBoundingBox(piece.outline);
+	const cut = cutLine(stitch);
+	const outerBox = cut.length ? pointsBoundingBox(cut.flat()) : bbox;
+	const apexOf = new Map(piece.apexes.map((a) => [a.id, a.point]));
+	const marks: Vec[][] = notchMarks(piece);
+	const dotted: Vec[][] = [];
+	const arrows: Arrow[] = [];
+	for (const d of piece.darts) {
+		const apex = apexOf.get(d.apexId);
+		if (!apex) continue;
+		const mouth = vecLerp(d.leg1End, d.leg2End, 0.5);
+		dotted.push([apex, mouth]);
+		if (d.pullBack) {
+			marks.push([d.leg1End, d.pullBack.sewnPoint, d.leg2End]);
+		}
+		if (d.cap) marks.push(pathFlatten(d.cap.edges, DRAW_TOLERANCE_MM));
+		if (d.pressToward) {
+			const toward = d.pressToward === 'leg1' ? d.leg1End : d.leg2End;
+			const from = vecLerp(apex, mouth, 0.8);
+			const to = vecLerp(apex, toward, 0.8);
+			arrows.push({ from, to: vecLerp(from, to, 0.8), heads: 'one' });
+		}
+	}
+	for (const p of piece.pleats) {
+		marks.push([p.foldLine.from, p.foldLine.to]);
+		marks.push([p.placementLine.from, p.placementLine.to]);
+		const dir = vecNormalize(vecSub(p.foldArrow.from, p.foldLine.to));
+		const lift = vecScale(dir, -8);
+		arrows.push({ from: vecAdd(p.foldArrow.from, lift), to: vecAdd(p.foldArrow.to, lift), heads: 'one' });
+	}
+	if (piece.grainline) arrows.push({ from: piece.grainline.from, to: piece.grainline.to, heads: piece.grainline.arrowheads });
+	const internal = piece.internalLines.map((l) => pathFlatten(l.path, DRAW_TOLERANCE_MM));
+	const labels = piece.labels.map((l) => ({ text: l.text, at: l.at, angleRad: l.angleRad }));
+	return {
+		bbox,
+		outerBox,
+		stitch,
+		cut,
+		internal,
+		marks,
+		dotted,
+		arrows,
+		foldLine: piece.foldLine ? [piece.foldLine.from, piece.foldLine.to] : null,
+		apexes: piece.apexes.map((a) => a.point),
+		drill: piece.drillHoles.map((h) => h.at),
+		labels,
+		title: { text: piece.name, at: { x: (bbox.minX + bbox.maxX) / 2, y: (bbox.minY + bbox.maxY) / 2 } },
+		vertexCount: stitch.length
+	};
+}

@@ -1,0 +1,573 @@
+import { pathBoundingBox, boundingBoxUnion, BOUNDING_BOX_EMPTY, vecAdd, type Vec } from '$lib/geometry';
+import { ledgerBalance, type LedgerEntry } from '$lib/pattern/ledger';
+import { pieceMetrics } from '$lib/pattern/metrics';
+import type { Piece } from '$lib/pattern/piece-schema';
+import { recipeReplayStep } from '$lib/pattern/verify/replay';
+import { versionVerify, type RecipeStepData } from '$lib/pattern/verify/version-verify';
+import { ApiFailure, pieceCreate, pieceLoad, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
+import { docReplacePiece, pieceIsDirty, type EditorDoc, type HistoryEntry, type PieceEdit, type StepRecord } from './doc';
+import { pieceDrawing } from './drawing';
+import { hitTest, snapPoint, type Hit, type PlacedPiece, type Snap, type SnapOptions } from './hit';
+import { editorApply, editorSeparate } from './ops';
+import { TOOLS } from './tools/registry';
+import type { ToolId, ToolPreview } from './tools/types';
+import type { LengthUnit } from './units';
+import { CALIBRATION_KEY, DEFAULT_PX_PER_MM, fitBox, MAX_TRUE_FACTOR, screenToWorld, UNIT_KEY, worldToScreen, zoomAbout } from './view';
+
+/** Parameters the tools collect (one object: tools are pure functions over this state). */
+export interface ToolInput {
+	pieceKey: string | null;
+	dartId: string | null;
+	lineId: string | null;
+	target: Vec | null;
+	points: Vec[];
+	fractions: number[];
+	keepFraction: number;
+	count: number;
+	firstAtMm: number;
+	spacingMm: number;
+	mode: 'equal_angle' | 'equal_intake';
+	kind: 'pleat' | 'tuck';
+	foldToward: 'auto' | 'leg1' | 'leg2';
+	parallelMm: number;
+	clearanceMm: number;
+	pressToward: 'leg1' | 'leg2';
+	/** Style line: start, handle 1, handle 2, end (piece coordinates). */
+	handles: Vec[];
+	dragIndex: number;
+	dragging: boolean;
+}
+
+function freshInput(): ToolInput {
+	return {
+		pieceKey: null,
+		dartId: null,
+		lineId: null,
+		target: null,
+		points: [],
+		fractions: [],
+		keepFraction: 0,
+		count: 2,
+		firstAtMm: 15,
+		spacingMm: 30,
+		mode: 'equal_angle',
+		kind: 'pleat',
+		foldToward: 'auto',
+		parallelMm: 0,
+		clearanceMm: 20,
+		pressToward: 'leg1',
+		handles: [],
+		dragIndex: -1,
+		dragging: false
+	};
+}
+
+export interface Selection {
+	pieceKey: string | null;
+	segmentIndex: number;
+	point: Vec | null;
+}
+
+export interface SaveReport {
+	readonly pieceKey: string;
+	readonly name: string;
+	readonly number: number;
+	readonly message: string;
+	readonly checks: SaveResult['checks'];
+	readonly warnings: SaveResult['warnings'];
+}
+
+export interface Conflict {
+	readonly pieceKey: string;
+	readonly name: string;
+	readonly message: string;
+	readonly headId: string;
+	readonly headNumber: number;
+	readonly head: Piece | null;
+	readonly headMessage: string;
+	readonly headAuthor: string;
+	readonly saveMessage: string;
+}
+
+const GAP_MM = 60;
+
+export class EditorState {
+	readonly studioId: string;
+	readonly styleId: string;
+	readonly canEdit: boolean;
+
+	styleName = $state('');
+	loading = $state(true);
+	loadError = $state<string | null>(null);
+	seamPairs = $state.raw<readonly SeamPairInfo[]>([]);
+
+	doc = $state.raw<EditorDoc>({ pieces: [] });
+	past = $state.raw<readonly HistoryEntry[]>([]);
+	future = $state.raw<readonly HistoryEntry[]>([]);
+
+	selection = $state<Selection>({ pieceKey: null, segmentIndex: -1, point: null });
+	hover = $state.raw<Hit | null>(null);
+	snapShown = $state.raw<Snap | null>(null);
+	/** A piece being moved on the canvas and where it would go (world offset). */
+	moving = $state.raw<{ key: string; offset: Vec } | null>(null);
+
+	tool = $state<ToolId>('select');
+	input = $state<ToolInput>(freshInput());
+	toolMessage = $state<string | null>(null);
+
+	scale = $state(DEFAULT_PX_PER_MM);
+	panX = $state(0);
+	panY = $state(0);
+	viewW = $state(800);
+	viewH = $state(600);
+	calibration = $state(DEFAULT_PX_PER_MM);
+	unit = $state<LengthUnit>('mm');
+	showCut = $state(true);
+	helpOpen = $state(false);
+	calibrateOpen = $state(false);
+
+	saving = $state<{ done: number; total: number; name: string } | null>(null);
+	saveError = $state<string | null>(null);
+	saveReports = $state.raw<readonly SaveReport[]>([]);
+	conflict = $state.raw<Conflict | null>(null);
+	announce = $state('');
+
+	constructor(studioId: string, styleId: string, canEdit: boolean) {
+		this.studioId = studioId;
+		this.styleId = styleId;
+		this.canEdit = canEdit;
+		if (typeof localStorage !== 'undefined') {
+			const c = Number(localStorage.getItem(CALIBRATION_KEY));
+			if (Number.isFinite(c) && c > 0.5 && c < 50) this.calibration = c;
+			const u = localStorage.getItem(UNIT_KEY);
+			if (u === 'mm' || u === 'cm' || u === 'in') this.unit = u;
+		}
+		this.scale = this.calibration;
+	}
+
+	// ---------- derived ----------
+	visible = $derived(this.doc.pieces.filter((p) => !p.retired));
+	placed = $derived<PlacedPiece[]>(this.visible.map((p) => ({ key: p.key, piece: p.geometry, offset: p.offset })));
+	selected = $derived(this.doc.pieces.find((p) => p.key === this.selection.pieceKey && !p.retired) ?? null);
+	preview = $derived.by<ToolPreview | null>(() => TOOLS[this.tool].preview?.(this) ?? null);
+	dirty = $derived(this.doc.pieces.filter(pieceIsDirty));
+	zoomPercent = $derived(Math.round((this.scale / this.calibration) * 100));
+	minScale = $derived(Math.min(this.fitView().scale, this.calibration) * 0.5);
+	maxScale = $derived(this.calibration * MAX_TRUE_FACTOR);
+
+	/** Metrics of the selected piece (the preview's result while a tool previews on it). */
+	selectedMetrics = $derived.by(() => {
+		const p = this.selected;
+		if (!p) return null;
+		const pv = this.preview;
+		const piece = pv?.piece && pv.pieceKey === p.key ? pv.piece : p.geometry;
+		return pieceMetrics(piece);
+	});
+
+	/** Ledger entries since the base version (with the preview's, if it previews on the selected piece). */
+	selectedLedger = $derived.by<LedgerEntry[]>(() => {
+		const p = this.selected;
+		if (!p) return [];
+		const entries = p.steps.flatMap((s) => s.ledger);
+		const pv = this.preview;
+		if (pv?.piece && pv.pieceKey === p.key) entries.push(...pv.ledger);
+		return entries;
+	});
+	selectedBalance = $derived(ledgerBalance(this.selectedLedger));
+
+	/** The checks the server will run on save (versionVerify in the browser). */
+	selectedVerify = $derived.by(() => {
+		const p = this.selected;
+		if (!p || p.steps.length === 0 || !p.base) return null;
+		return versionVerify(p.base, p.geometry, this.recipeOf(p), recipeReplayStep);
+	});
+
+	// ---------- loading ----------
+	async load(): Promise<void> {
+		this.loading = true;
+		this.loadError = null;
+		try {
+			const d = await styleLoad(this.studioId, this.styleId);
+			this.styleName = d.style.name;
+			this.seamPairs = d.seamPairs;
+			let x = 0;
+			let y = 0;
+			let rowHeight = 0;
+			const pieces: PieceEdit[] = [];
+			const shown = d.pieces.filter((p) => p.shown);
+			const perRow = Math.max(1, Math.ceil(Math.sqrt(shown.length * 1.6)));
+			for (const [i, sp] of shown.entries()) {
+				if (!sp.shown) continue;
+				if (i > 0 && i % perRow === 0) {
+					x = 0;
+					y += rowHeight + GAP_MM;
+					rowHeight = 0;
+				}
+				const g = sp.shown.geometry;
+				const box = pieceDrawing(g).outerBox;
+				const offset = { x: x - box.minX, y: y - box.minY };
+				x += box.maxX - box.minX + GAP_MM;
+				rowHeight = Math.max(rowHeight, box.maxY - box.minY);
+				pieces.push({
+					key: sp.id,
+					name: sp.name,
+					cut: sp.cut,
+					fabric: sp.fabric,
+					baseVersionId: sp.shown.id,
+					baseNumber: sp.shown.number,
+					base: g,
+					geometry: g,
+					steps: [],
+					offset,
+					origin: null,
+					retired: false,
+					readOnly: !this.canEdit || sp.shown.id !== sp.headVersionId
+				});
+			}
+			this.doc = { pieces };
+			this.past = [];
+			this.future = [];
+			if (pieces.length && !this.selection.pieceKey) this.selection.pieceKey = pieces[0].key;
+			this.fit();
+		} catch (e) {
+			this.loadError = e instanceof Error ? e.message : 'The style could not be loaded.';
+		} finally {
+			this.loading = false;
+		}
+	}
+
+	// ---------- view ----------
+	view() {
+		return { scale: this.scale, panX: this.panX, panY: this.panY };
+	}
+	toWorld(screen: Vec): Vec {
+		return screenToWorld(this.view(), screen);
+	}
+	toScreen(world: Vec): Vec {
+		return worldToScreen(this.view(), world);
+	}
+	private setView(v: { scale: number; panX: number; panY: number }) {
+		this.scale = v.scale;
+		this.panX = v.panX;
+		this.panY = v.panY;
+	}
+	fitView() {
+		let box = BOUNDING_BOX_EMPTY;
+		for (const p of this.visible) {
+			const b = pieceDrawing(p.geometry).outerBox;
+			box = boundingBoxUnion(box, { minX: b.minX + p.offset.x, minY: b.minY + p.offset.y, maxX: b.maxX + p.offset.x, maxY: b.maxY + p.offset.y });
+		}
+		if (!Number.isFinite(box.minX)) box = { minX: 0, minY: 0, maxX: 500, maxY: 500 };
+		return fitBox(box, this.viewW, this.viewH);
+	}
+	fit() {
+		this.setView(this.fitView());
+	}
+	zoomBy(factor: number, at: Vec = { x: this.viewW / 2, y: this.viewH / 2 }) {
+		this.setView(zoomAbout(this.view(), factor, at, this.minScale, this.maxScale));
+	}
+	/** 1:1 on screen, as calibrated. */
+	trueSize(at: Vec = { x: this.viewW / 2, y: this.viewH / 2 }) {
+		this.zoomBy(this.calibration / this.scale, at);
+	}
+	panBy(dx: number, dy: number) {
+		this.panX += dx;
+		this.panY += dy;
+	}
+	setCalibration(pxPerMm: number) {
+		if (!(pxPerMm > 0.5 && pxPerMm < 50)) return;
+		const factor = this.scale / this.calibration;
+		this.calibration = pxPerMm;
+		localStorage.setItem(CALIBRATION_KEY, String(pxPerMm));
+		this.zoomBy((pxPerMm * factor) / this.scale);
+	}
+	setUnit(u: LengthUnit) {
+		this.unit = u;
+		localStorage.setItem(UNIT_KEY, u);
+	}
+	/** Pointer tolerance in mm (a few screen pixels). */
+	tolMm(px = 8): number {
+		return px / this.scale;
+	}
+
+	// ---------- pieces ----------
+	piece(key: string | null): PieceEdit | null {
+		return key ? (this.doc.pieces.find((p) => p.key === key) ?? null) : null;
+	}
+	hitAt(world: Vec): Hit | null {
+		return hitTest(this.placed, world, this.tolMm(7));
+	}
+	snapAt(world: Vec, opts: SnapOptions = {}): Snap {
+		return snapPoint(this.placed, world, this.tolMm(9), { grid: true, ...opts });
+	}
+	/** Piece coordinates of a world point for a piece. */
+	local(key: string, world: Vec): Vec {
+		const p = this.piece(key);
+		return p ? { x: world.x - p.offset.x, y: world.y - p.offset.y } : world;
+	}
+	recipeOf(p: PieceEdit): RecipeStepData[] {
+		return p.steps.map((s) => ({ op: s.op, params: s.params }));
+	}
+
+	// ---------- history ----------
+	private push(next: EditorDoc, label: string) {
+		this.past = [...this.past, { doc: this.doc, label }];
+		this.future = [];
+		this.doc = next;
+		this.announce = label;
+	}
+	undo() {
+		const last = this.past.at(-1);
+		if (!last) return;
+		this.cancelTool();
+		this.future = [{ doc: this.doc, label: last.label }, ...this.future];
+		this.past = this.past.slice(0, -1);
+		this.doc = last.doc;
+		this.announce = `Undone: ${last.label}`;
+		this.fixSelection();
+	}
+	redo() {
+		const next = this.future[0];
+		if (!next) return;
+		this.cancelTool();
+		this.past = [...this.past, { doc: this.doc, label: next.label }];
+		this.future = this.future.slice(1);
+		this.doc = next.doc;
+		this.announce = `Redone: ${next.label}`;
+		this.fixSelection();
+	}
+	private fixSelection() {
+		if (!this.selected) this.selection.pieceKey = this.visible[0]?.key ?? null;
+	}
+
+	/** Apply one step to a piece; returns an error message or null. */
+	apply(key: string, step: RecipeStepData, label?: string): string | null {
+		const p = this.piece(key);
+		if (!p || p.readOnly) return 'This piece cannot be changed here.';
+		const r = editorApply(p.geometry, step);
+		if (!r.ok) return r.error.message;
+		const rec: StepRecord = { op: step.op, params: step.params, ledger: r.ledgerEntries, summary: r.report.summary, notes: r.report.notes };
+		this.push(
+			docReplacePiece(this.doc, key, (q) => ({ ...q, geometry: r.piece, steps: [...q.steps, rec] })),
+			label ?? `${p.name}: ${r.report.summary}`
+		);
+		return null;
+	}
+
+	/** Cut a piece along one of its style lines into two new pieces (saved as new pieces). */
+	separatePiece(key: string, styleLineId: string): string | null {
+		const p = this.piece(key);
+		if (!p || p.readOnly) return 'This piece cannot be changed here.';
+		const names: [string, string] = [`${p.name} — upper`, `${p.name} — lower`];
+		const r = editorSeparate(p.geometry, { styleLineId, pieceNames: names });
+		if (!r.ok) return r.error.message;
+		const stamp = Date.now().toString(36);
+		const made: PieceEdit[] = r.pieces.map((g, i) => ({
+			key: `new-${stamp}-${i}`,
+			name: g.name,
+			cut: g.cut,
+			fabric: g.fabric,
+			baseVersionId: null,
+			baseNumber: 0,
+			base: null,
+			geometry: g,
+			steps: [],
+			offset: vecAdd(p.offset, { x: 0, y: i * 25 }),
+			origin: {
+				op: 'separate_result',
+				params: { fromPieceId: p.key.startsWith('new-') ? null : p.key, fromVersionId: p.baseVersionId, styleLineId, part: i, recipe: this.recipeOf(p) }
+			},
+			retired: false,
+			readOnly: false
+		}));
+		const pieces = this.doc.pieces.flatMap((q) => (q.key === key ? [{ ...q, retired: true }, ...made] : [q]));
+		this.push({ pieces }, `${p.name}: separated into ${made.length} pieces — ${r.report.summary}`);
+		this.selection.pieceKey = made[0]?.key ?? null;
+		return null;
+	}
+
+	movePiece(key: string, offset: Vec) {
+		const p = this.piece(key);
+		if (!p) return;
+		this.push(docReplacePiece(this.doc, key, (q) => ({ ...q, offset })), `${p.name} moved on the table`);
+	}
+
+	// ---------- tools ----------
+	setTool(id: ToolId) {
+		if (TOOLS[id].edits && !this.canEdit) return;
+		this.tool = id;
+		this.input = freshInput();
+		const sel = this.selected;
+		if (sel) {
+			this.input.pieceKey = sel.key;
+			if (sel.geometry.darts.length) this.input.dartId = sel.geometry.darts[0].id;
+			if (sel.geometry.internalLines.length) this.input.lineId = sel.geometry.internalLines[0].id;
+		}
+		this.toolMessage = null;
+		this.announce = `${TOOLS[id].name} tool`;
+	}
+	cancelTool() {
+		const keep = this.input.pieceKey;
+		this.input = freshInput();
+		this.input.pieceKey = keep;
+		if (keep) {
+			const g = this.piece(keep)?.geometry;
+			if (g?.darts.length) this.input.dartId = g.darts[0].id;
+			if (g?.internalLines.length) this.input.lineId = g.internalLines[0].id;
+		}
+		this.moving = null;
+		this.toolMessage = null;
+	}
+	escape() {
+		if (this.helpOpen) this.helpOpen = false;
+		else if (this.tool !== 'select' && (this.input.target || this.input.points.length || this.input.handles.length)) this.cancelTool();
+		else if (this.tool !== 'select') this.setTool('select');
+		else this.selection.segmentIndex = -1;
+	}
+	commitTool() {
+		const def = TOOLS[this.tool];
+		if (def.commit) def.commit(this);
+	}
+	/** Commit a previewed single-piece step; used by tools. */
+	commitStep(step: RecipeStepData): boolean {
+		const key = this.input.pieceKey;
+		if (!key) return false;
+		const err = this.apply(key, step);
+		this.toolMessage = err;
+		if (!err) {
+			const keep = { ...this.input };
+			this.cancelTool();
+			this.input.mode = keep.mode;
+			this.input.kind = keep.kind;
+			this.input.count = keep.count;
+			this.input.spacingMm = keep.spacingMm;
+			this.input.firstAtMm = keep.firstAtMm;
+			this.input.clearanceMm = keep.clearanceMm;
+			// the next step starts with picking its dart again (no preview of a dart nobody chose)
+			this.input.dartId = null;
+		}
+		return !err;
+	}
+
+	// ---------- saving ----------
+	async save(message: string): Promise<void> {
+		if (this.saving) return;
+		const todo = this.dirty;
+		if (!todo.length) {
+			this.saveError = 'Nothing to save: no piece has changed since its version.';
+			return;
+		}
+		if (!message.trim()) {
+			this.saveError = 'Say what changed in a few words before saving.';
+			return;
+		}
+		this.saveError = null;
+		this.conflict = null;
+		const reports: SaveReport[] = [];
+		this.saving = { done: 0, total: todo.length, name: todo[0].name };
+		try {
+			for (const [i, p] of todo.entries()) {
+				this.saving = { done: i, total: todo.length, name: p.name };
+				const r = await this.saveOne(p, message);
+				if (!r) return;
+				reports.push(r);
+				this.saveReports = [...reports];
+			}
+			this.past = [];
+			this.future = [];
+			this.announce = `Saved ${reports.map((r) => `${r.name} version ${r.number}`).join(', ')}.`;
+		} finally {
+			this.saving = null;
+		}
+	}
+
+	private async saveOne(p: PieceEdit, message: string): Promise<SaveReport | null> {
+		try {
+			let r: SaveResult;
+			let key = p.key;
+			if (p.origin) {
+				const c = await pieceCreate(this.studioId, this.styleId, { name: p.name, message, geometry: p.geometry, origin: p.origin });
+				r = c;
+				key = c.piece.id;
+			} else {
+				r = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p) });
+			}
+			const saved: PieceEdit = { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null };
+			this.doc = docReplacePiece(this.doc, p.key, () => saved);
+			if (this.selection.pieceKey === p.key) this.selection.pieceKey = key;
+			return { pieceKey: key, name: p.name, number: r.version.number, message, checks: r.checks, warnings: r.warnings };
+		} catch (e) {
+			if (e instanceof ApiFailure && e.status === 409 && !p.origin) {
+				await this.openConflict(p, e, message);
+				this.saveError = `${p.name}: ${e.message}`;
+			} else {
+				this.saveError = `${p.name} was not saved: ${e instanceof Error ? e.message : String(e)} Your edits are kept.`;
+			}
+			return null;
+		}
+	}
+
+	private async openConflict(p: PieceEdit, e: ApiFailure, saveMessage: string) {
+		let head: Piece | null = null;
+		let headId = e.headers?.get('x-head-version') ?? '';
+		let headNumber = Number(e.headers?.get('x-head-number') ?? 0);
+		let headMessage = '';
+		let headAuthor = '';
+		try {
+			const d = await pieceLoad(this.studioId, p.key);
+			head = d.shown?.geometry ?? null;
+			headId = d.shown?.id ?? headId;
+			headNumber = d.shown?.number ?? headNumber;
+			const v = d.versions.find((x) => x.id === headId);
+			headMessage = v?.message ?? '';
+			headAuthor = v?.authorName ?? '';
+		} catch {
+			/* shown without details */
+		}
+		this.conflict = { pieceKey: p.key, name: p.name, message: e.message, headId, headNumber, head, headMessage, headAuthor, saveMessage };
+	}
+
+	/** Drop my steps on this piece and take the server's head. */
+	conflictReload() {
+		const c = this.conflict;
+		if (!c || !c.head) return;
+		this.doc = docReplacePiece(this.doc, c.pieceKey, (q) => ({ ...q, base: c.head, geometry: c.head!, baseVersionId: c.headId, baseNumber: c.headNumber, steps: [] }));
+		this.past = [];
+		this.future = [];
+		this.conflict = null;
+		this.saveError = null;
+		this.announce = `Reloaded version ${c.headNumber} of ${c.name}.`;
+	}
+
+	/** Re-apply my steps on the server's head, then save on top of it. */
+	async conflictSaveOnTop(): Promise<void> {
+		const c = this.conflict;
+		const p = c && this.piece(c.pieceKey);
+		if (!c || !p || !c.head) return;
+		let g = c.head;
+		const steps: StepRecord[] = [];
+		for (const [i, s] of p.steps.entries()) {
+			const r = editorApply(g, { op: s.op, params: s.params });
+			if (!r.ok) {
+				this.saveError = `Step ${i + 1} (${s.op}) does not apply to version ${c.headNumber}: ${r.error.message} Your edits are kept; reload or change the step.`;
+				return;
+			}
+			g = r.piece;
+			steps.push({ ...s, ledger: r.ledgerEntries, summary: r.report.summary, notes: r.report.notes });
+		}
+		this.doc = docReplacePiece(this.doc, c.pieceKey, (q) => ({ ...q, base: c.head, geometry: g, baseVersionId: c.headId, baseNumber: c.headNumber, steps }));
+		this.conflict = null;
+		this.saveError = null;
+		await this.save(c.saveMessage);
+	}
+
+	/** A world-space bounding box of every visible piece (for rulers and tests). */
+	piecesBox() {
+		let box = BOUNDING_BOX_EMPTY;
+		for (const p of this.visible) {
+			const b = pathBoundingBox(p.geometry.outline);
+			box = boundingBoxUnion(box, { minX: b.minX + p.offset.x, minY: b.minY + p.offset.y, maxX: b.maxX + p.offset.x, maxY: b.maxY + p.offset.y });
+		}
+		return box;
+	}
+}

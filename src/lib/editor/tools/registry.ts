@@ -1,0 +1,25 @@
+import { capTool } from './cap';
+import { measureTool } from './measure';
+import { pivotTool } from './pivot';
+import { pleatTool } from './pleat';
+import { pullBackTool } from './pull-back';
+import { selectTool } from './select';
+import { separateTool } from './separate';
+import { shareTool } from './share';
+import { styleLineTool } from './style-line';
+import type { ToolDef, ToolId } from './types';
+
+/** Every tool of the editor, in toolbar order. */
+export const TOOLS: Record<ToolId, ToolDef> = {
+	select: selectTool,
+	pivot: pivotTool,
+	share: shareTool,
+	pleat: pleatTool,
+	pull_back: pullBackTool,
+	cap: capTool,
+	style_line: styleLineTool,
+	separate: separateTool,
+	measure: measureTool
+};
+
+export const TOOL_ORDER: readonly ToolId[] = ['select', 'pivot', 'share', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'measure'];

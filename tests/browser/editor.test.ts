@@ -1,0 +1,169 @@
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import AxeBuilder from '@axe-core/playwright';
+import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
+import type { Piece } from '../../src/lib/pattern/piece-schema';
+import { browserLaunch, pageScreenshot } from './chromium';
+import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp } from './editor-helpers';
+
+const block = frontBodiceBlock();
+const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
+const bp = block.apexes[0].point;
+// the side seam runs from the underarm (235, 230) to the side waist (225, 440)
+const sideSeamAt = (y: number) => ({ x: 235 - (10 * (y - 230)) / 210, y });
+// the waist from the side waist (225, 440) toward the waist dart's leg (115, …)
+const waistLeg1 = block.darts.find((d) => d.id === 'waist-dart')!.leg1End;
+const waistAt = (x: number) => lerp({ x: 225, y: 440 }, waistLeg1, (225 - x) / (225 - waistLeg1.x));
+
+describe('pattern editor', () => {
+	let browser: Browser;
+	const baseUrl = () => inject('baseUrl');
+	beforeAll(async () => {
+		browser = await browserLaunch();
+	});
+	afterAll(async () => {
+		await browser?.close();
+	});
+
+	it('pivots the bust dart to the side seam by dragging, keeps the ledger balanced, saves version 2', async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		const problems: string[] = [];
+		page.on('pageerror', (e) => problems.push(e.message));
+		await editorOpen(page, f.editorUrl);
+		await pageScreenshot(page, 'editor-open');
+
+		const axe = await new AxeBuilder({ page }).analyze();
+		const serious = axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+		expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
+
+		const key = await firstKey(page);
+		await page.click('[data-tool="pivot"]');
+		// press on the shoulder dart near its mouth, drag to the side seam
+		await dragOnPiece(page, key, lerp(bp, shoulder.leg1End, 0.85), sideSeamAt(300));
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pivot');
+		const ledger = page.locator('[data-testid="ledger-state"]').first();
+		await expect.poll(() => ledger.textContent()).toContain('Balanced');
+		const checks = await page.locator('[data-testid="verify-checks"] li').allTextContents();
+		expect(checks.length).toBeGreaterThan(0);
+		expect(checks.every((c) => c.startsWith('✓'))).toBe(true);
+		await pageScreenshot(page, 'editor-pivot');
+
+		await page.fill('#save-message', 'Shoulder dart moved to the side seam');
+		await page.click('button:has-text("Save version")');
+		await page.waitForSelector('[data-testid="save-report"]:has-text("version 2 saved")');
+		await pageScreenshot(page, 'editor-saved');
+
+		await editorOpen(page, f.editorUrl);
+		await expect.poll(() => page.locator('section[aria-labelledby="pieces-title"]').textContent()).toContain('v2');
+		const geometry = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		const moved = geometry.darts.find((d) => d.id === 'shoulder-dart')!;
+		expect(moved.leg1End.x).toBeGreaterThan(200);
+		expect(problems).toEqual([]);
+		await f.context.close();
+	});
+
+	it('turns a dart into two pleats by typing numbers', async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		await page.click('[data-tool="pleat"]');
+		await page.selectOption('#tool-dart', 'shoulder-dart');
+		await page.fill('#pleat-count', '2');
+		await page.fill('#pleat-first', '15');
+		await page.press('#pleat-first', 'Tab');
+		await page.fill('#pleat-spacing', '30');
+		await page.press('#pleat-spacing', 'Tab');
+		await page.selectOption('#pleat-mode', 'equal_intake');
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').textContent()).toContain('Pleat 2 intake');
+		await pageScreenshot(page, 'editor-pleat-preview');
+		await page.click('button:has-text("Apply")');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pleat');
+		const key = await firstKey(page);
+		const g = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		expect(g.pleats).toHaveLength(2);
+		expect(Math.abs(g.pleats[0].intakeMm - g.pleats[1].intakeMm)).toBeLessThan(0.01);
+		await expect.poll(() => page.locator('[data-testid="ledger-state"]').first().textContent()).toContain('Balanced');
+		await pageScreenshot(page, 'editor-pleats');
+		await f.context.close();
+	});
+
+	it('draws a style line, separates the piece, and undoes back to the start', async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		const key = await firstKey(page);
+		await page.keyboard.press('s');
+		expect(await page.getAttribute('[data-tool="style_line"]', 'aria-pressed')).toBe('true');
+		await clickOnPiece(page, key, sideSeamAt(280));
+		await clickOnPiece(page, key, waistAt(170));
+		// curve it: drag the first handle a little toward the centre
+		const h1 = lerp(sideSeamAt(280), waistAt(170), 1 / 3);
+		await dragOnPiece(page, key, h1, { x: h1.x - 15, y: h1.y + 5 }, 6);
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').textContent()).toContain('Line length');
+		await pageScreenshot(page, 'editor-style-line');
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Style line');
+
+		await page.keyboard.press('x');
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').textContent()).toContain('Piece 2 area');
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.evaluate(() => window.dartelierEditor!.pieceKeys().length)).toBe(2);
+		await pageScreenshot(page, 'editor-separated');
+
+		for (let i = 0; i < 5 && (await page.evaluate(() => window.dartelierEditor!.historyLength())) > 0; i++) {
+			await page.locator('[data-testid="editor-canvas"]').focus();
+			await page.keyboard.press('Control+z');
+		}
+		expect(await page.evaluate(() => window.dartelierEditor!.historyLength())).toBe(0);
+		expect(await page.evaluate(() => window.dartelierEditor!.pieceKeys())).toEqual([key]);
+		const g = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		expect(g.internalLines).toHaveLength(0);
+		expect(await page.locator('[data-testid="recipe"]').textContent()).toContain('No steps yet');
+		await page.keyboard.press('Control+Shift+z');
+		expect(await page.evaluate(() => window.dartelierEditor!.historyLength())).toBe(1);
+		await f.context.close();
+	});
+
+	it('resolves a save conflict from a second browser context without losing either edit', async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const a = f.page;
+		const other = await browser.newContext({ viewport: { width: 1440, height: 900 }, storageState: await f.context.storageState() });
+		const b = await other.newPage();
+		await editorOpen(a, f.editorUrl);
+		await editorOpen(b, f.editorUrl);
+
+		// B: pull the waist dart's point back 20 mm and save (version 2)
+		await b.click('[data-tool="pull_back"]');
+		await b.selectOption('#tool-dart', 'waist-dart');
+		await b.fill('#pull-clearance', '20');
+		await b.press('#pull-clearance', 'Enter');
+		await expect.poll(() => b.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pull back');
+		await b.fill('#save-message', 'Waist dart point pulled back');
+		await b.click('button:has-text("Save version")');
+		await b.waitForSelector('[data-testid="save-report"]:has-text("version 2 saved")');
+
+		// A: pivot the shoulder dart (based on version 1) and save: the server answers 409
+		const key = await firstKey(a);
+		await a.click('[data-tool="pivot"]');
+		await dragOnPiece(a, key, lerp(bp, shoulder.leg1End, 0.85), sideSeamAt(300));
+		await expect.poll(() => a.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pivot');
+		await a.fill('#save-message', 'Shoulder dart to the side seam');
+		await a.click('button:has-text("Save version")');
+		await a.waitForSelector('[data-testid="conflict"]');
+		expect(await a.locator('[data-testid="conflict"]').textContent()).toContain('Version 2');
+		await pageScreenshot(a, 'editor-conflict');
+		await a.click('button:has-text("Save mine on top")');
+		await a.waitForSelector('[data-testid="save-report"]:has-text("version 3 saved")');
+
+		const r = await a.request.get(`${baseUrl()}/api/studios/${f.studioId}/pieces/${key}`);
+		const body = await r.json();
+		expect(body.shown.number).toBe(3);
+		const g = body.shown.geometry as Piece;
+		expect(g.darts.find((d) => d.id === 'waist-dart')?.pullBack?.clearanceMm).toBe(20);
+		expect(g.darts.find((d) => d.id === 'shoulder-dart')!.leg1End.x).toBeGreaterThan(200);
+		await pageScreenshot(a, 'editor-conflict-resolved');
+		await other.close();
+		await f.context.close();
+	});
+});
