@@ -118,3 +118,14 @@ export async function versionsSupersedeOthers(db: DbOrTx, pieceId: string, keepI
 		.where('state', '=', 'signed_off')
 		.execute();
 }
+
+/** Only the geometry of a version (what a save replays on), without the rest of the row. */
+export async function versionsGeometry(db: DbOrTx, pieceId: string, versionId: string): Promise<unknown | undefined> {
+	const row = await db
+		.selectFrom('piece_versions')
+		.select('geometry')
+		.where('id', '=', versionId)
+		.where('piece_id', '=', pieceId)
+		.executeTakeFirst();
+	return row?.geometry;
+}

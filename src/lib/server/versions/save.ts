@@ -6,7 +6,7 @@ import { seamPairMeasure, type SeamPairMeasure } from '$lib/pattern/verify/seam-
 import { recipeReplayStep } from '$lib/pattern/verify/replay';
 import { piecesHeadSet, piecesInStudio, piecesLockForSave, piecesOfStyle } from '../repositories/pieces';
 import { seamPairsOfStyle } from '../repositories/seam-pairs';
-import { versionsById, versionsInsert } from '../repositories/versions';
+import { versionsGeometry, versionsInsert } from '../repositories/versions';
 
 export interface SaveInput {
 	studioId: string;
@@ -52,8 +52,8 @@ export async function seamWarnings(db: DbOrTx, styleId: string, pieceId: string,
 	const heads = new Map<string, Piece>();
 	for (const other of await piecesOfStyle(db, styleId)) {
 		if (other.id === pieceId || !other.headVersionId) continue;
-		const v = await versionsById(db, other.id, other.headVersionId);
-		if (v) heads.set(other.id, pieceSchema.parse(v.geometry));
+		const g = await versionsGeometry(db, other.id, other.headVersionId);
+		if (g) heads.set(other.id, pieceSchema.parse(g));
 	}
 	heads.set(pieceId, piece);
 	const out: SeamPairMeasure[] = [];
@@ -84,9 +84,9 @@ export async function versionSave(db: Db, input: SaveInput, hooks: SaveHooks = {
 
 	let parent: Piece | null = null;
 	if (input.baseVersionId) {
-		const base = await versionsById(db, input.pieceId, input.baseVersionId);
+		const base = await versionsGeometry(db, input.pieceId, input.baseVersionId);
 		if (!base) return { ok: false, status: 404, message: 'The base version does not belong to this piece.' };
-		parent = pieceSchema.parse(base.geometry);
+		parent = pieceSchema.parse(base);
 	}
 	const verdict = versionVerify(parent, input.geometry, input.recipe, recipeReplayStep, input.declared ?? []);
 	if (!verdict.ok) return { ok: false, status: 422, problem: verdict.problem };
