@@ -90,7 +90,8 @@ export function versionVerify(
 			`The submitted piece is not what its recipe gives: ${diff.where}${far}. Nothing was saved.`
 		);
 	}
-	const checks = shapingChecks(parent, current, ledger);
+	const metrics = pieceMetrics(current);
+	const checks = shapingChecks(pieceMetrics(parent), metrics, ledger);
 	const failed = checks.filter((c) => !c.passed);
 	if (failed.length > 0) {
 		return fail(
@@ -99,5 +100,5 @@ export function versionVerify(
 			failed.map((c) => c.message)
 		);
 	}
-	return { ok: true, piece: current, metrics: pieceMetrics(current), ledger, checks };
+	return { ok: true, piece: current, metrics, ledger, checks };
 }
