@@ -87,7 +87,7 @@ const USED: MeasurementId[] = [
 ];
 
 export const BLOCK_METHOD =
-	'Fitted bodice block after the metric block method (W. Aldrich, Metric Pattern Cutting for Women’s Wear, 5th ed., 2008, as far as reference-values gives its numbers: bust dart 70 mm at 88 cm bust, ± 6 mm per 4 cm); other proportions are our rules of thumb (M). See src/lib/pattern/drafting/README.md.';
+	'Fitted bodice block after the metric block method (W. Aldrich, Metric Pattern Cutting for Women’s Wear, 5th ed., 2008, as far as its published numbers reach us: bust dart 70 mm at 88 cm bust, ± 6 mm per 4 cm); other proportions are our rules of thumb (M). See src/lib/pattern/drafting/README.md.';
 
 export function blockRulesOfThumb(): string[] {
 	const R = DRAFT_RULES;
@@ -150,7 +150,7 @@ export function blockDraft(measurements: MeasurementsMm, ease: Ease = EASE_DEFAU
 			intakeAtShoulderMm: f.bustDartIntakeMm,
 			legLengthMm: f.bustDartLegMm,
 			angleRad: f.bustDartAngleRad,
-			source: `Metric block method: 70 mm at ${BUST_DART_REFERENCE_BUST_MM / 10} cm bust, ± 6 mm per 4 cm (Aldrich 5th ed. 2008 via a tutorial, reference-values row 6, S); angle θ = 2·asin(w/2r) (row 17).`
+			source: `Metric block method: 70 mm at ${BUST_DART_REFERENCE_BUST_MM / 10} cm bust, ± 6 mm per 4 cm (Aldrich 5th ed. 2008, via a published tutorial); angle θ = 2·asin(w/2r).`
 		},
 		widths: {
 			frontBustMm: f.frontBustWidthMm,

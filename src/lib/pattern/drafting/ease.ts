@@ -13,7 +13,7 @@ export interface Ease {
 export const EASE_DEFAULT: Ease = { bustMm: 50.8, waistMm: 25.4 };
 
 export const EASE_SOURCE =
-	'Wearing ease for a fitted bodice, bust 1½–2 in and waist ¾–1 in (costume construction text, reference-values row 23, S); defaults take 2 in and 1 in.';
+	'Wearing ease for a fitted bodice, bust 1½–2 in and waist ¾–1 in (a costume construction text, secondary source); defaults take 2 in and 1 in.';
 
 export interface DraftCaution {
 	readonly code: 'negative_ease' | 'large_reduction' | 'toile_first' | 'maker_practice';
