@@ -219,7 +219,7 @@ describe('cut instructions and report', () => {
 		expect(byId.bust.derived).toBe(false);
 		expect(byId.back_length.derived).toBe(true);
 		expect(byId.back_length.rule).toMatch(/rule of thumb/);
-		expect(report.ease.source).toMatch(/row 23/);
+		expect(report.ease.source).toMatch(/costume construction text/);
 		expect(report.cautions).toEqual([]);
 	});
 });
