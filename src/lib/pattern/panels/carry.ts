@@ -3,6 +3,7 @@ import {
 	outlineContainsPoint,
 	outlineFlatten,
 	outlineNearestPoint,
+	outlineSelfIntersections,
 	pathBetween,
 	pathFromPolyline,
 	pathIntersections,
@@ -147,6 +148,9 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	const residualAs = params.residualAs ?? 'dart';
 	const styleSeamId = params.styleSeamId ?? 'style-seam';
 	const line = params.styleLine;
+	if (outlineSelfIntersections(line, false).length > 0) {
+		return panelRefuse('invalid_params', 'The style line crosses itself; draw it as one clean stroke across the panels.');
+	}
 	// 1. cut every panel along the style line
 	const parts: Part[] = [];
 	for (const panel of panels) {
@@ -164,7 +168,7 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 		const first = hits[0];
 		const last = hits[hits.length - 1];
 		const cut = pathBetween(line, first, last);
-		const s = separate(panel, { path: cut, pieceIds: [`${panel.id}-1`, `${panel.id}-2`], notchFractions: [], pieceChecked: true, crossingsChecked: true });
+		const s = separate(panel, { path: cut, pieceIds: [`${panel.id}-1`, `${panel.id}-2`], notchFractions: [], pieceChecked: true, crossingsChecked: true, partsSimpleByConstruction: true });
 		if (!s.ok) return panelRefuse(s.error.code, `${panel.name}: ${s.error.message}`);
 		const [p1, p2] = s.pieces;
 		const cy = (q: Piece) => polygonCentroid(outlineFlatten(q.outline, 0.5)).y;

@@ -43,6 +43,12 @@ export interface SeparateParams {
 	readonly pieceChecked?: boolean;
 	/** The caller has already made sure the line crosses the outline only at its ends (carry). */
 	readonly crossingsChecked?: boolean;
+	/**
+	 * The caller has checked that a straight or simple cut crosses the outline exactly twice, so each part
+	 * is a simple outline by construction (a chord across a simple closed curve): the parts skip the
+	 * self-crossing search and the caller checks what it builds from them (carry checks the joined piece).
+	 */
+	readonly partsSimpleByConstruction?: boolean;
 }
 
 export function separate(piece: Piece, params: SeparateParams): PiecesResult {
@@ -124,7 +130,7 @@ export function separate(piece: Piece, params: SeparateParams): PiecesResult {
 	const b: Piece = { ...piece, ...partB, id: idB, name: nameB, outline: outlineB, notches: [...partB.notches, ...cutNotches] };
 	// Both parts are checked in full: a cut grazing the outline near its end can touch it again.
 	for (const p of [a, b]) {
-		const problems = pieceProblems(p);
+		const problems = pieceProblems(p, params.partsSimpleByConstruction ? { selfIntersection: false } : {});
 		if (problems.length) return panelRefuse('result_broken', `This cut would give a broken piece, so nothing was changed: ${problems[0]}`);
 	}
 	const areaA = outlineArea(outlineA);
