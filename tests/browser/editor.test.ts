@@ -166,4 +166,42 @@ describe('pattern editor', () => {
 		await other.close();
 		await f.context.close();
 	});
+
+	it('marks the piece for the sample room (notch, grainline, allowance), measures with the tape, saves', async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		const key = await firstKey(page);
+
+		await page.keyboard.press('m');
+		await clickOnPiece(page, key, { x: 235, y: 230 });
+		await clickOnPiece(page, key, { x: 225, y: 440 });
+		const tape = await page.locator('[data-testid="tool-readouts"]').textContent();
+		expect(tape).toContain('Straight distance');
+		expect(tape).toContain('210.2 mm');
+		expect(tape).toContain('Along the outline');
+		await page.selectOption('select:near(:text("Unit"))', 'in');
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').textContent()).toContain('8 1/4 in');
+		await pageScreenshot(page, 'editor-tape-measure');
+		await page.selectOption('select:near(:text("Unit"))', 'mm');
+
+		await page.keyboard.press('n');
+		await clickOnPiece(page, key, sideSeamAt(300));
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('[data-testid="recipe"]').textContent()).toContain('notch');
+		await page.keyboard.press('g');
+		await clickOnPiece(page, key, { x: 60, y: 300 });
+		await page.keyboard.press('Enter');
+		await page.keyboard.press('a');
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').count()).toBe(1);
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').count()).toBe(3);
+		const checks = await page.locator('[data-testid="verify-checks"] li').allTextContents();
+		expect(checks.every((c) => c.startsWith('✓'))).toBe(true);
+		await pageScreenshot(page, 'editor-marks');
+		await page.fill('#save-message', 'Notch, grainline and allowance');
+		await page.click('button:has-text("Save version")');
+		await page.waitForSelector('[data-testid="save-report"]:has-text("version 2 saved")');
+		await f.context.close();
+	});
 });

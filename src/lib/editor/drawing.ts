@@ -42,6 +42,8 @@ export interface PieceDrawing {
 	readonly outerBox: BoundingBox;
 	readonly stitch: readonly Vec[];
 	readonly cut: readonly (readonly Vec[])[];
+	/** The cut line is the piece's own seam allowance (else a 10 mm display allowance). */
+	readonly cutIsReal: boolean;
 	readonly internal: readonly (readonly Vec[])[];
 	/** Thin ink marks: notches, dart centre lines, pleat lines, sewn legs, caps. */
 	readonly marks: readonly (readonly Vec[])[];
@@ -100,7 +102,7 @@ function notchMarks(piece: Piece): Vec[][] {
 function buildDrawing(piece: Piece): PieceDrawing {
 	const stitch = outlineFlatten(piece.outline, DRAW_TOLERANCE_MM);
 	const bbox = pathBoundingBox(piece.outline);
-	const cut = cutLine(stitch);
+	const cut = piece.seamAllowance ? [outlineFlatten(piece.seamAllowance.cutLine, DRAW_TOLERANCE_MM)] : cutLine(stitch);
 	const outerBox = cut.length ? pointsBoundingBox(cut.flat()) : bbox;
 	const apexOf = new Map(piece.apexes.map((a) => [a.id, a.point]));
 	const marks: Vec[][] = notchMarks(piece);
@@ -137,6 +139,7 @@ function buildDrawing(piece: Piece): PieceDrawing {
 		outerBox,
 		stitch,
 		cut,
+		cutIsReal: piece.seamAllowance !== null,
 		internal,
 		marks,
 		dotted,

@@ -397,8 +397,11 @@ export class EditorState {
 		if (TOOLS[id].edits && !this.canEdit) return;
 		this.tool = id;
 		this.input = freshInput();
+		if (id === 'grain') this.input.spacingMm = 200;
+		if (id === 'allowance') this.input.clearanceMm = 10;
+		if (id === 'notch') this.input.count = 1;
 		const sel = this.selected;
-		if (sel) {
+		if (sel && !sel.readOnly) {
 			this.input.pieceKey = sel.key;
 			if (sel.geometry.darts.length) this.input.dartId = sel.geometry.darts[0].id;
 			if (sel.geometry.internalLines.length) this.input.lineId = sel.geometry.internalLines[0].id;

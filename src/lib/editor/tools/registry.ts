@@ -1,4 +1,6 @@
 import { capTool } from './cap';
+import { allowanceTool, foldTool, grainTool, notchTool } from './marks';
+import { spreadTool } from './spread';
 import { measureTool } from './measure';
 import { pivotTool } from './pivot';
 import { pleatTool } from './pleat';
@@ -19,7 +21,12 @@ export const TOOLS: Record<ToolId, ToolDef> = {
 	cap: capTool,
 	style_line: styleLineTool,
 	separate: separateTool,
+	spread: spreadTool,
+	notch: notchTool,
+	grain: grainTool,
+	fold: foldTool,
+	allowance: allowanceTool,
 	measure: measureTool
 };
 
-export const TOOL_ORDER: readonly ToolId[] = ['select', 'pivot', 'share', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'measure'];
+export const TOOL_ORDER: readonly ToolId[] = ['select', 'pivot', 'share', 'spread', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'notch', 'grain', 'fold', 'allowance', 'measure'];

@@ -13,6 +13,11 @@ export type ToolId =
 	| 'cap'
 	| 'style_line'
 	| 'separate'
+	| 'spread'
+	| 'notch'
+	| 'grain'
+	| 'fold'
+	| 'allowance'
 	| 'measure';
 
 export interface PointerInfo {
