@@ -198,6 +198,59 @@ describe('saving versions', () => {
 	});
 });
 
+describe('refusals a person understands', () => {
+	it('answers 400 with field errors for a body that does not fit the schema', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: '', geometry: {}, recipe: [] });
+		expect(r.status).toBe(400);
+		const body = await r.json();
+		expect(Object.keys(body.error.fields)).toEqual(expect.arrayContaining(['message', 'geometry']));
+	});
+
+	it('answers 413 for a body over the size limit and for too many outline segments', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const huge = 'x'.repeat(5 * 1024 * 1024);
+		const big = await c.request('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			body: JSON.stringify({ baseVersionId: v1, message: huge }),
+			headers: { 'content-type': 'application/json' }
+		});
+		expect(big.status).toBe(413);
+		const block = frontBodiceBlock();
+		const many = Array.from({ length: 50_001 }, (_, i) => ({ kind: 'line' as const, p0: { x: i, y: 0 }, p1: { x: i + 1, y: 0 } }));
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'many', geometry: { ...block, outline: { segments: many } }, recipe: [{ op: 'reshape' }] });
+		expect([413]).toContain(r.status);
+		expect((await r.json()).error.message).toMatch(/segments|larger/);
+	});
+
+	it('answers 422 saying where an outline crosses itself', async () => {
+		const { styleId } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const bow = {
+			...block,
+			apexes: [],
+			darts: [],
+			notches: [],
+			grainline: null,
+			foldLine: null,
+			labels: [],
+			outline: {
+				segments: [
+					{ kind: 'line', p0: { x: 0, y: 0 }, p1: { x: 100, y: 100 } },
+					{ kind: 'line', p0: { x: 100, y: 100 }, p1: { x: 100, y: 0 } },
+					{ kind: 'line', p0: { x: 100, y: 0 }, p1: { x: 0, y: 100 } },
+					{ kind: 'line', p0: { x: 0, y: 100 }, p1: { x: 0, y: 0 } }
+				]
+			}
+		};
+		const r = await c.api('POST', `/api/studios/${studioId}/styles/${styleId}/pieces`, { name: 'Bow', geometry: bow, origin: { op: 'import' } });
+		expect(r.status).toBe(422);
+		const body = await r.json();
+		expect(body.error.code).toBe('invalid_geometry');
+		expect(body.error.message).toMatch(/cross/i);
+		expect(body.error.message).toMatch(/50(\.0+)?/); // the crossing at (50, 50) mm
+	});
+});
+
 describe('concurrency and failure', () => {
 	it('eight saves from the same base at once give exactly one new version and seven 409s', async () => {
 		const { pieceId, v1 } = await styleWithPiece();

@@ -34,11 +34,15 @@ function tooLarge(limit: number): ApiError {
 	});
 }
 
-/** Reads the body as text, refusing it (413) past `limit` by content-length or by bytes read. */
+/**
+ * Reads the body as text, refusing it (413) past `limit` by content-length or by bytes read. A body
+ * over the limit is still read to its end (and dropped) so that the client, still sending, receives
+ * the 413 instead of a broken connection; adapter-node's BODY_SIZE_LIMIT bounds what that costs.
+ */
 export async function readBodyLimited(request: Request, limit = API_BODY_LIMIT): Promise<string> {
-	const declared = request.headers.get('content-length');
-	if (declared !== null && Number(declared) > limit) throw tooLarge(limit);
 	if (!request.body) return '';
+	const declared = request.headers.get('content-length');
+	let over = declared !== null && Number(declared) > limit;
 	const reader = request.body.getReader();
 	const chunks: Uint8Array[] = [];
 	let size = 0;
@@ -47,20 +51,15 @@ export async function readBodyLimited(request: Request, limit = API_BODY_LIMIT):
 			const { done, value } = await reader.read();
 			if (done) break;
 			size += value.byteLength;
-			if (size > limit) {
-				// Stop reading, but do not cancel: that would destroy the socket before we can answer.
-				// Node discards the rest of the body after the response.
-				reader.releaseLock();
-				throw tooLarge(limit);
-			}
-			chunks.push(value);
+			if (size > limit) over = true;
+			if (!over) chunks.push(value);
 		}
 	} catch (e) {
-		if (e instanceof ApiError) throw e;
 		// adapter-node's own BODY_SIZE_LIMIT surfaces here as a stream error with status 413
-		if ((e as { status?: number })?.status === 413) throw tooLarge(limit);
+		if ((e as { status?: number })?.status === 413 || over) throw tooLarge(limit);
 		throw new ApiError(400, 'bad_request', 'The request body could not be read.');
 	}
+	if (over) throw tooLarge(limit);
 	return Buffer.concat(chunks).toString('utf8');
 }
 
