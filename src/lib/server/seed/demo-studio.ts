@@ -6,6 +6,7 @@ import { measurementChartsSeed } from '../measurements/charts';
 import { membershipsAddIfAbsent, membershipsForUser } from '../repositories/memberships';
 import { studiosCreate } from '../repositories/studios';
 import { usersByEmail, usersCreate } from '../repositories/users';
+import { demoStyleSeed } from './demo-style';
 
 export interface DemoSeedResult {
 	studioId: string;
@@ -14,21 +15,29 @@ export interface DemoSeedResult {
 
 /**
  * Seeds the demo studio of our own scenario (fixtures/demo-studio.json). Idempotent: the studio is
- * found through its owner's membership, users by e-mail; nothing is duplicated on a second run.
+ * found through its owner's membership, users by e-mail; nothing is duplicated on a second run. Then the
+ * demo style of the same scenario (demo-style.ts), skipped when the studio already has it.
  */
 export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
-	return db.transaction().execute(async (tx) => {
+	const seeded = await db.transaction().execute(async (tx) => {
 		const ownerSpec = demo.users.find((u) => u.role === 'owner')!;
 		const hash = await passwordHash(demo.password);
 		const owner = (await usersByEmail(tx, ownerSpec.email)) ?? (await usersCreate(tx, { ...ownerSpec, passwordHash: hash }));
 		const existing = (await membershipsForUser(tx, owner.id)).find((m) => m.studioName === demo.studio);
 		const studioId = existing?.studioId ?? (await studiosCreate(tx, demo.studio)).id;
+		const userIds: Partial<Record<Role, string>> = {};
 		for (const spec of demo.users) {
 			const user = (await usersByEmail(tx, spec.email)) ?? (await usersCreate(tx, { ...spec, passwordHash: hash }));
 			await membershipsAddIfAbsent(tx, { studioId, userId: user.id, role: spec.role as Role });
+			userIds[spec.role as Role] = user.id;
 		}
 		// The published size charts (read-only, idempotent: existing chart rows are kept).
 		await measurementChartsSeed(tx, studioId);
-		return { studioId, created: !existing };
+		return { studioId, created: !existing, userIds };
 	});
+	// The demo style (its own idempotence: skipped when the studio has it). Outside the transaction above:
+	// every version is verified and saved through versionSave, which opens its own transactions.
+	const { patterncutter, designer } = seeded.userIds;
+	if (patterncutter && designer) await demoStyleSeed(db, seeded.studioId, { patterncutter, designer });
+	return { studioId: seeded.studioId, created: seeded.created };
 }

@@ -1,0 +1,117 @@
+import { DEMO_CHART, DEMO_STYLE, demoPath } from '$lib/pattern/fixtures/demo-path';
+import type { Db } from '../db';
+import type { Role } from '../db/schema';
+import { measurementChartsEnsure } from '../measurements/charts';
+import { draftedStyleDiscard, measurementSetsOfStudio } from '../repositories/measurement-sets';
+import { stylesCreate, stylesOfStudio } from '../repositories/styles';
+import { pieceCreateWithFirstVersion } from '../versions/piece-create';
+import { versionSave, type SaveOutcome } from '../versions/save';
+import { versionStateChange } from '../versions/state';
+
+export interface DemoStyleAuthors {
+	/** Drafts and saves every version. */
+	patterncutter: string;
+	/** Signs the final versions off. */
+	designer: string;
+}
+
+export interface DemoStyleSeedResult {
+	styleId: string;
+	created: boolean;
+	pieces: { id: string; name: string; versions: { id: string; number: number }[] }[];
+}
+
+/** Pieces whose last version goes to the sample room (proposed by the cutter, signed off by the designer). */
+const SIGNED_OFF = ['midriff-band', 'upper-front'];
+
+function refusal(what: string, r: Extract<SaveOutcome, { ok: false }>): Error {
+	return new Error(`Demo style: ${what} was refused: ${'problem' in r ? r.problem.message : r.message}`);
+}
+
+/**
+ * Seeds the demo style "Juniper corset bodice" (LR-214) into the demo studio: every piece and version of
+ * the pure demo path ($lib/pattern/fixtures/demo-path.ts), stored through the same server functions as
+ * the API, so each version is verified on the server (its recipe replayed on the previous version, the
+ * shaping checks run) before it is stored. Idempotent: nothing is done when the studio already has a
+ * style with this code. All or nothing: if any version is refused, the new style is removed again.
+ * Takes `db` (not a transaction): versionSave opens its own transactions.
+ */
+export async function demoStyleSeed(db: Db, studioId: string, authors: DemoStyleAuthors): Promise<DemoStyleSeedResult> {
+	const existing = (await stylesOfStudio(db, studioId)).find((s) => s.code === DEMO_STYLE.code);
+	if (existing) return { styleId: existing.id, created: false, pieces: [] };
+
+	await measurementChartsEnsure(db, studioId);
+	const set = (await measurementSetsOfStudio(db, studioId)).find((s) => s.chartKey === DEMO_CHART.chartKey);
+	if (!set) throw new Error(`Demo style: the studio has no chart set "${DEMO_CHART.chartKey}".`);
+
+	const path = demoPath();
+	const style = await stylesCreate(db, {
+		studioId,
+		name: DEMO_STYLE.name,
+		code: DEMO_STYLE.code,
+		season: DEMO_STYLE.season,
+		notes: DEMO_STYLE.notes,
+		measurementSetId: set.id,
+		createdBy: authors.patterncutter
+	});
+	const made = new Map<string, { id: string; name: string; versions: { id: string; number: number }[] }>();
+	try {
+		for (const p of path.pieces) {
+			const origin =
+				p.first.origin.op === 'draft'
+					? { op: 'draft', params: { measurementSetId: set.id, ...(p.first.origin.params as object) } }
+					: {
+							op: p.first.origin.op,
+							params: {
+								...(p.first.origin.params as object),
+								from: p.first.madeFrom.map((k) => {
+									const src = made.get(k);
+									if (!src) throw new Error(`Demo style: "${p.name}" is made from "${k}", which is not there yet.`);
+									return { pieceId: src.id, versionId: src.versions[0].id, name: src.name };
+								})
+							}
+						};
+			const first = await pieceCreateWithFirstVersion(db, {
+				studioId,
+				styleId: style.id,
+				authorId: authors.patterncutter,
+				name: p.name,
+				message: p.first.message,
+				geometry: p.first.geometry,
+				origin
+			});
+			if (!first.ok) throw refusal(`${p.name} v1`, first);
+			const versions = [{ id: first.version.id, number: first.version.number }];
+			for (const v of p.later) {
+				const r = await versionSave(db, {
+					studioId,
+					pieceId: first.piece.id,
+					baseVersionId: versions[versions.length - 1].id,
+					message: v.message,
+					geometry: v.geometry,
+					recipe: v.recipe,
+					authorId: authors.patterncutter
+				});
+				if (!r.ok) throw refusal(`${p.name} v${versions.length + 1}`, r);
+				versions.push({ id: r.version.id, number: r.version.number });
+			}
+			made.set(p.key, { id: first.piece.id, name: p.name, versions });
+		}
+		for (const key of SIGNED_OFF) {
+			const p = made.get(key)!;
+			const last = p.versions[p.versions.length - 1];
+			const steps: { state: 'proposed' | 'signed_off'; userId: string; role: Role }[] = [
+				{ state: 'proposed', userId: authors.patterncutter, role: 'patterncutter' },
+				{ state: 'signed_off', userId: authors.designer, role: 'designer' }
+			];
+			for (const s of steps) {
+				const r = await versionStateChange(db, { studioId, pieceId: p.id, versionId: last.id, ...s });
+				if (!r.ok) throw new Error(`Demo style: ${p.name} v${last.number} could not be ${s.state.replace('_', ' ')}: ${r.message}`);
+			}
+		}
+	} catch (e) {
+		await draftedStyleDiscard(db, studioId, style.id);
+		throw e;
+	}
+	return { styleId: style.id, created: true, pieces: [...made.values()] };
+}

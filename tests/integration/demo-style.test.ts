@@ -1,0 +1,126 @@
+// The demo style the demo seed adds (real PostgreSQL, built app): seeded once, every version verified
+// and stored by the server, the final versions signed off and exportable.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import demo from '../../fixtures/demo-studio.json';
+import { DEMO_STYLE, demoPath } from '../../src/lib/pattern/fixtures/demo-path';
+import { draftedStyleDiscard } from '../../src/lib/server/repositories/measurement-sets';
+import { piecesOfStyle } from '../../src/lib/server/repositories/pieces';
+import { stylesOfStudio } from '../../src/lib/server/repositories/styles';
+import { usersByEmail } from '../../src/lib/server/repositories/users';
+import { versionsById, versionsOfPiece } from '../../src/lib/server/repositories/versions';
+import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
+import { startApp, type RunningApp } from './app-server';
+import { sessionClient, testDb, testDbClose, throttleAddressReset } from './helpers';
+
+let app: RunningApp;
+let studioId: string;
+
+beforeAll(async () => {
+	app = await startApp();
+	await throttleAddressReset();
+	// The test database outlives a run: remove the demo style a previous run seeded, so that this run
+	// seeds it afresh through the current code.
+	studioId = (await demoStudioSeed(testDb())).studioId;
+	for (const s of await demoStyles()) await draftedStyleDiscard(testDb(), studioId, s.id);
+	await demoStudioSeed(testDb());
+}, 60_000);
+
+afterAll(async () => {
+	await app?.close();
+	await testDbClose();
+});
+
+/** Versions of a piece, oldest first. */
+async function versionsAsc(pieceId: string) {
+	return (await versionsOfPiece(testDb(), pieceId)).sort((a, b) => a.number - b.number);
+}
+
+async function demoStyles() {
+	return (await stylesOfStudio(testDb(), studioId)).filter((s) => s.code === DEMO_STYLE.code);
+}
+
+describe('demo style: Juniper corset bodice', () => {
+	it('is seeded once: a second run adds no style, piece or version', async () => {
+		const style = (await demoStyles())[0];
+		const count = async () => {
+			const pieces = await piecesOfStyle(testDb(), style.id);
+			let versions = 0;
+			for (const p of pieces) versions += (await versionsOfPiece(testDb(), p.id)).length;
+			return { pieces: pieces.length, versions };
+		};
+		const before = await count();
+		await demoStudioSeed(testDb());
+		expect(await demoStyles()).toHaveLength(1);
+		expect(await count()).toEqual(before);
+	});
+
+	it('has the expected pieces and versions, in order, drafted from the studio\'s ASTM D5585 curvy 10 chart set', async () => {
+		const [style] = await demoStyles();
+		expect(style.name).toBe(DEMO_STYLE.name);
+		expect(style.season).toBe('AW27');
+		const set = await testDb().selectFrom('measurement_sets').select(['chart_key']).where('id', '=', style.measurementSetId!).executeTakeFirstOrThrow();
+		expect(set.chart_key).toBe('astm-d5585/curvy/10');
+		const pieces = await piecesOfStyle(testDb(), style.id);
+		const expected = demoPath().pieces;
+		expect(pieces.map((p) => [p.name, p.headNumber])).toEqual(expected.map((p) => [p.name, 1 + p.later.length]));
+		const band = pieces.find((p) => p.name === 'Midriff band')!;
+		const v1 = await versionsById(testDb(), band.id, (await versionsAsc(band.id))[0].id);
+		const origin = (v1!.recipe as { op: string; params: { operation: string; from: { pieceId: string }[] } }[])[0];
+		expect(origin.op).toBe('separate_result');
+		expect(origin.params.operation).toBe('carry');
+		expect(origin.params.from.map((f) => f.pieceId)).toEqual(pieces.filter((p) => p.name.startsWith('Under-structure')).map((p) => p.id));
+	});
+
+	it('stores every version with passing checks, the ledger of each later version from the server\'s replay', async () => {
+		const [style] = await demoStyles();
+		for (const p of await piecesOfStyle(testDb(), style.id)) {
+			for (const s of await versionsOfPiece(testDb(), p.id)) {
+				const v = (await versionsById(testDb(), p.id, s.id))!;
+				const checks = v.checks as { code: string; passed: boolean }[];
+				expect(checks.filter((c) => !c.passed), `${p.name} v${v.number}`).toEqual([]);
+				if (v.number > 1) expect(checks.length, `${p.name} v${v.number} was checked`).toBeGreaterThan(0);
+				expect((v.recipe as unknown[]).length).toBeGreaterThan(0);
+			}
+		}
+		const upper = (await piecesOfStyle(testDb(), style.id)).find((p) => p.name === 'Upper front')!;
+		const ops = [];
+		for (const s of await versionsAsc(upper.id)) ops.push(((await versionsById(testDb(), upper.id, s.id))!.recipe as { op: string }[])[0].op);
+		expect(ops).toEqual(['separate_result', 'pivot', 'pleat', 'grain']);
+	});
+
+	it('has the final band and upper front signed off, the rest in draft', async () => {
+		const [style] = await demoStyles();
+		for (const p of await piecesOfStyle(testDb(), style.id)) {
+			const versions = await versionsOfPiece(testDb(), p.id);
+			const head = versions.find((v) => v.id === p.headVersionId)!;
+			if (p.name === 'Midriff band' || p.name === 'Upper front') expect(head.state, p.name).toBe('signed_off');
+			else expect(versions.every((v) => v.state === 'draft'), p.name).toBe(true);
+		}
+	});
+
+	it('answers the style page, the compare API and the SVG export of the final upper front', async () => {
+		const [style] = await demoStyles();
+		const cutter = await usersByEmail(testDb(), demo.users.find((u) => u.role === 'patterncutter')!.email);
+		const c = await sessionClient(app.baseUrl, cutter!.id);
+		const page = await c.get(`/studios/${studioId}/styles/${style.id}`);
+		expect(page.status).toBe(200);
+		const html = await page.text();
+		for (const name of ['Midriff band', 'Upper front', 'Front block']) expect(html).toContain(name);
+
+		const upper = (await piecesOfStyle(testDb(), style.id)).find((p) => p.name === 'Upper front')!;
+		const versions = await versionsAsc(upper.id);
+		const cmp = await c.api('GET', `/api/studios/${studioId}/pieces/${upper.id}/compare?a=${versions[1].id}&b=${versions[2].id}`);
+		expect(cmp.status).toBe(200);
+
+		const r = await c.api('GET', `/api/studios/${studioId}/pieces/${upper.id}/export.svg?version=${upper.headVersionId}`);
+		expect(r.status).toBe(200);
+		expect(r.headers.get('content-type')).toMatch(/image\/svg\+xml/);
+		expect(r.headers.get('content-disposition')).toMatch(/lr-214-upper-front-v4\.svg/);
+		expect(await r.text()).toMatch(/<svg [^>]*width="[\d.]+mm"/);
+
+		// the sample room sees the signed-off version too
+		const sample = await usersByEmail(testDb(), demo.users.find((u) => u.role === 'sampleroom')!.email);
+		const s = await sessionClient(app.baseUrl, sample!.id);
+		expect((await s.api('GET', `/api/studios/${studioId}/pieces/${upper.id}/export.svg`)).status).toBe(200);
+	});
+});
