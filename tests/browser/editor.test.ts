@@ -4,7 +4,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp } from './editor-helpers';
+import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, toPage } from './editor-helpers';
 
 const block = frontBodiceBlock();
 const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
@@ -37,7 +37,19 @@ describe('pattern editor', () => {
 		const serious = axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
 		expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
 
+		await page.locator('[data-testid="editor-canvas"]').focus();
+		await page.keyboard.press('Shift+?');
+		await page.waitForSelector('[role="dialog"]:has-text("Keyboard shortcuts")');
+		expect(await page.locator('[role="dialog"]').textContent()).toContain('Pivot tool');
+		await pageScreenshot(page, 'editor-help');
+		await page.keyboard.press('Escape');
+		await page.waitForSelector('[role="dialog"]', { state: 'detached' });
+
 		const key = await firstKey(page);
+		// hovering the side seam says what is under the pointer
+		const seam = await toPage(page, key, sideSeamAt(320));
+		await page.mouse.move(seam.x, seam.y);
+		await expect.poll(() => page.locator('[data-testid="hover"]').textContent()).toContain('edge');
 		await page.click('[data-tool="pivot"]');
 		// press on the shoulder dart near its mouth, drag to the side seam
 		await dragOnPiece(page, key, lerp(bp, shoulder.leg1End, 0.85), sideSeamAt(300));

@@ -114,7 +114,11 @@ function buildDrawing(piece: Piece): PieceDrawing {
 		const mouth = vecLerp(d.leg1End, d.leg2End, 0.5);
 		dotted.push([apex, mouth]);
 		if (d.pullBack) {
-			marks.push([d.leg1End, d.pullBack.sewnPoint, d.leg2End]);
+			const t = d.pullBack.sewnPoint;
+			marks.push([d.leg1End, t, d.leg2End]);
+			// a short bar across the centre line marks the sewn point
+			const across = vecScale(vecPerp(vecNormalize(vecSub(mouth, apex))), 3);
+			marks.push([vecAdd(t, across), vecSub(t, across)]);
 		}
 		if (d.cap) marks.push(pathFlatten(d.cap.edges, DRAW_TOLERANCE_MM));
 		if (d.pressToward) {
