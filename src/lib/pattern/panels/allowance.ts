@@ -109,7 +109,7 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 		co.AddPath(oriented(toClipper(ring)), ClipperLib.JoinType.jtRound, ClipperLib.EndType.etClosedPolygon);
 		const out: ClipperLib.Paths = [];
 		co.Execute(out, edges[0].widthMm * CLIPPER_SCALE);
-		return finish(piece, edges, out, sign);
+		return finish(piece, edges, out, sign, ring);
 	}
 	const subjects: IntPath[] = [oriented(toClipper(ring))];
 	for (let i = 0; i < edges.length; i++) {
@@ -173,18 +173,25 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 		d.Execute(ClipperLib.ClipType.ctDifference, next, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
 		solution = next;
 	}
-	return finish(piece, edges, solution, sign);
+	return finish(piece, edges, solution, sign, ring);
 }
 
-function finish(piece: Piece, edges: (AllowanceEdge & { widthMm: number })[], solution: ClipperLib.Paths, sign: number): AllowanceResult {
-	const outer = solution.filter((p) => ClipperLib.Clipper.Orientation(p));
-	const holes = solution.length - outer.length;
-	if (outer.length !== 1 || holes > 0) {
-		return panelRefuse(
-			'allowance_failed',
-			`The allowance came out as ${outer.length} piece(s) with ${holes} hole(s); check the widths against the narrow parts of the piece.`
-		);
-	}
+function finish(
+	piece: Piece,
+	edges: (AllowanceEdge & { widthMm: number })[],
+	solution: ClipperLib.Paths,
+	sign: number,
+	ring: readonly Vec[]
+): AllowanceResult {
+	// The union holds the whole stitching line, so the cut line is the boundary of the one region that
+	// contains it: any hole lies in the allowance band (a gap where bands meet at a concave corner) and is
+	// filled; a region apart from the piece can only be a stray lobe of a corner fill and is left out.
+	const inside = (p: ClipperLib.Path) => ClipperLib.Clipper.PointInPolygon(toClipper([ring[0]])[0], p) !== 0;
+	const area = (p: ClipperLib.Path) => Math.abs(ClipperLib.Clipper.Area(p)) / (CLIPPER_SCALE * CLIPPER_SCALE);
+	const outer = solution.filter((p) => ClipperLib.Clipper.Orientation(p)).sort((a, b) => area(b) - area(a));
+	const main = outer.find(inside) ?? outer[0];
+	if (!main) return panelRefuse('allowance_failed', 'The allowance could not be built for this piece; check the widths against its narrow parts.');
+	outer.splice(0, outer.length, main);
 	let cutLine = fromClipper(outer[0]);
 	if (Math.sign(polygonSignedArea(cutLine)) !== sign) cutLine = cutLine.reverse();
 	return {
