@@ -3,6 +3,8 @@
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import type { TestProject } from 'vitest/node';
+import { dbCreate } from '../../src/lib/server/db/index';
+import { migrateToLatest } from '../../src/lib/server/db/migrator';
 
 async function freePort(): Promise<number> {
 	return new Promise((resolve, reject) => {
@@ -33,6 +35,13 @@ export default async function setup(project: TestProject) {
 	const databaseUrl = execFileSync('bash', ['-c', 'source scripts/lib.sh && pg_start test >&2 && printf %s "$DATABASE_URL"'], {
 		encoding: 'utf8'
 	}).trim();
+	// The same migrations as `npm test` runs first, so the browser project also works on its own.
+	const db = dbCreate(databaseUrl, 1);
+	try {
+		await migrateToLatest(db);
+	} finally {
+		await db.destroy();
+	}
 	const [appPort, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
 	const env = { ...process.env, DATABASE_URL: databaseUrl };
 	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
