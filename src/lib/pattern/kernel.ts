@@ -2,4 +2,5 @@
  * The one place the pattern model imports the geometry kernel from (src/lib/geometry).
  */
 export * from '../geometry';
-export { outlineNearestLocation } from './locate';
+/** Nearest place on an outline (the kernel's outlineNearestPoint, under the name the operations use). */
+export { outlineNearestPoint as outlineNearestLocation } from '../geometry';

@@ -1,5 +1,6 @@
-import type { Segment, Vec } from '../kernel';
-import { outlineBetween, outlineNearestLocation, segmentEnd, segmentLength, segmentStart, vecDistance } from '../kernel';
+import type { Vec } from '../kernel';
+import { outlineBetween, outlineNearestLocation } from '../kernel';
+import { sewnLength } from '../panels/seam-measure';
 import type { Piece } from '../piece-schema';
 
 /** One side of a seam: the piece's stitching line from `from` to `to`, in outline order. */
@@ -31,12 +32,6 @@ export interface SeamPairMeasure {
 /** How far an edge end may lie off the stitching line and still be found on it (mm). */
 export const SEAM_END_SNAP_MM = 0.5;
 
-function touchesAny(s: Segment, points: readonly Vec[], tol = 1e-3): boolean {
-	const a = segmentStart(s);
-	const b = segmentEnd(s);
-	return points.some((p) => vecDistance(a, p) <= tol || vecDistance(b, p) <= tol);
-}
-
 /**
  * Length of a seam edge with darts and pleats folded out (trade practice: measure mating stitching
  * lines with the suppression closed): the stretch of outline from `from` to `to`, without the legs
@@ -46,14 +41,7 @@ export function seamEdgeLength(piece: Piece, edge: SeamEdgeData): number | null 
 	const a = outlineNearestLocation(piece.outline, edge.from);
 	const b = outlineNearestLocation(piece.outline, edge.to);
 	if (a.distance > SEAM_END_SNAP_MM || b.distance > SEAM_END_SNAP_MM) return null;
-	const stretch = outlineBetween(piece.outline, a, b);
-	const wedgePoints = [
-		...piece.apexes.map((x) => x.point),
-		...piece.pleats.flatMap((p) => [p.pivot1, p.pivot2].filter((v): v is Vec => v !== undefined))
-	];
-	let total = 0;
-	for (const s of stretch.segments) if (!touchesAny(s, wedgePoints)) total += segmentLength(s);
-	return total;
+	return sewnLength(piece, outlineBetween(piece.outline, a, b));
 }
 
 /** Measures a seam pair: both edges, their difference against the allowed ease, within tolerance or not. */
