@@ -13,6 +13,37 @@ export interface ComparisonRow {
 
 const deg = (rad: number) => (rad * 180) / Math.PI;
 
+type SeamLike = PieceMetrics['seams'][number];
+
+/**
+ * Pairs the seams of two versions: an operation may start the outline elsewhere or move a chain, so
+ * seams are matched by where they run and how long they are, not by their place in the outline. Greedy
+ * on the cost |Δlength| + distance of the two ends; pairs off by more than 25 % of the length stay apart.
+ */
+function seamsMatch(a: readonly SeamLike[], b: readonly SeamLike[]): [number | null, number | null][] {
+	const d = (p: { x: number; y: number }, q: { x: number; y: number }) => Math.hypot(p.x - q.x, p.y - q.y);
+	const cand: { i: number; j: number; cost: number }[] = [];
+	a.forEach((x, i) =>
+		b.forEach((y, j) => {
+			const cost = Math.abs(x.lengthMm - y.lengthMm) + 0.1 * (d(x.startPoint, y.startPoint) + d(x.endPoint, y.endPoint));
+			if (cost <= 0.25 * Math.max(x.lengthMm, y.lengthMm)) cand.push({ i, j, cost });
+		})
+	);
+	cand.sort((p, q) => p.cost - q.cost);
+	const ai = new Map<number, number>();
+	const usedB = new Set<number>();
+	for (const c of cand) {
+		if (ai.has(c.i) || usedB.has(c.j)) continue;
+		ai.set(c.i, c.j);
+		usedB.add(c.j);
+	}
+	const out: [number | null, number | null][] = a.map((_, i) => [i, ai.get(i) ?? null]);
+	b.forEach((_, j) => {
+		if (!usedB.has(j)) out.push([null, j]);
+	});
+	return out;
+}
+
 function row(group: ComparisonRow['group'], label: string, unit: ComparisonRow['unit'], a: number | null, b: number | null): ComparisonRow {
 	return { group, label, unit, a, b, difference: a === null || b === null ? null : b - a };
 }
@@ -31,9 +62,9 @@ export function metricsCompare(a: PieceMetrics, b: PieceMetrics): ComparisonRow[
 		row('piece', 'Perimeter', 'mm', a.perimeterMm, b.perimeterMm),
 		row('piece', 'Seam length, darts folded out', 'mm', a.seamLengthMm, b.seamLengthMm)
 	];
-	const seams = Math.max(a.seams.length, b.seams.length);
-	for (let i = 0; i < seams; i++) {
-		rows.push(row('seam', `Seam ${i + 1}`, 'mm', a.seams[i]?.lengthMm ?? null, b.seams[i]?.lengthMm ?? null));
+	for (const [i, j] of seamsMatch(a.seams, b.seams)) {
+		const label = i !== null ? `Seam ${i + 1}` : `New seam ${j! + 1}`;
+		rows.push(row('seam', label, 'mm', i !== null ? a.seams[i].lengthMm : null, j !== null ? b.seams[j].lengthMm : null));
 	}
 	const da = byKey(a.darts, (d) => d.id);
 	const db = byKey(b.darts, (d) => d.id);

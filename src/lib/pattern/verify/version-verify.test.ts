@@ -101,3 +101,20 @@ describe('server verification of a submitted version', () => {
 		expect(!v.ok && v.problem.code).toBe('invalid_geometry');
 	});
 });
+
+describe('comparing two versions', () => {
+	it('pairs each seam with the same seam after a pivot, so kept lengths show no difference', async () => {
+		const { metricsCompare } = await import('./metrics-compare');
+		const block = frontBodiceBlock();
+		const r = pivot(block, pivotParams);
+		if (!r.ok) throw new Error(r.error.message);
+		const rows = metricsCompare(pieceMetrics(block), pieceMetrics(r.piece)).filter((x) => x.group === 'seam');
+		// a pivot is a rigid move of a chain (trade-primer §1): with the darts folded out every seam between
+		// corners keeps its length, though the outline now starts and runs differently
+		expect(rows.length).toBe(pieceMetrics(block).seams.length);
+		for (const x of rows) {
+			expect(x.difference).not.toBeNull();
+			expect(Math.abs(x.difference!)).toBeLessThan(0.01);
+		}
+	});
+});
