@@ -15,6 +15,8 @@ export interface StepRecord {
 	readonly ledger: readonly LedgerEntry[];
 	readonly summary: string;
 	readonly notes: readonly string[];
+	/** Labelled changes declared with this step (sent as the save's `declared`). */
+	readonly declared?: readonly LedgerEntry[];
 }
 
 export interface PieceEdit {

@@ -36,6 +36,14 @@ export interface ToolInput {
 	handles: Vec[];
 	dragIndex: number;
 	dragging: boolean;
+	/** Join / carry / true seam: the picked pieces, a stored seam pair, or edges picked by clicking. */
+	keys: string[];
+	seamPairId: string | null;
+	edgePicks: { pieceKey: string; at: Vec }[];
+	wedge: 'close' | 'keep_as_dart';
+	fuse: 'above' | 'below';
+	residualAs: 'dart' | 'pleats';
+	adjust: 'none' | 'a-start' | 'a-end' | 'b-start' | 'b-end';
 }
 
 function freshInput(): ToolInput {
@@ -58,7 +66,14 @@ function freshInput(): ToolInput {
 		pressToward: 'leg1',
 		handles: [],
 		dragIndex: -1,
-		dragging: false
+		dragging: false,
+		keys: [],
+		seamPairId: null,
+		edgePicks: [],
+		wedge: 'close',
+		fuse: 'below',
+		residualAs: 'dart',
+		adjust: 'none'
 	};
 }
 
@@ -179,7 +194,7 @@ export class EditorState {
 	selectedVerify = $derived.by(() => {
 		const p = this.selected;
 		if (!p || p.steps.length === 0 || !p.base) return null;
-		return versionVerify(p.base, p.geometry, this.recipeOf(p), recipeReplayStep);
+		return versionVerify(p.base, p.geometry, this.recipeOf(p), recipeReplayStep, this.declaredOf(p));
 	});
 
 	// ---------- loading ----------
@@ -308,6 +323,10 @@ export class EditorState {
 	recipeOf(p: PieceEdit): RecipeStepData[] {
 		return p.steps.map((s) => ({ op: s.op, params: s.params }));
 	}
+	/** Labelled changes declared with the steps (e.g. a trued seam's length), sent with the save. */
+	declaredOf(p: PieceEdit): LedgerEntry[] {
+		return p.steps.flatMap((s) => s.declared ?? []);
+	}
 
 	// ---------- history ----------
 	private push(next: EditorDoc, label: string) {
@@ -341,12 +360,12 @@ export class EditorState {
 	}
 
 	/** Apply one step to a piece; returns an error message or null. */
-	apply(key: string, step: RecipeStepData, label?: string): string | null {
+	apply(key: string, step: RecipeStepData, label?: string, declared: readonly LedgerEntry[] = []): string | null {
 		const p = this.piece(key);
 		if (!p || p.readOnly) return 'This piece cannot be changed here.';
 		const r = editorApply(p.geometry, step);
 		if (!r.ok) return r.error.message;
-		const rec: StepRecord = { op: step.op, params: step.params, ledger: r.ledgerEntries, summary: r.report.summary, notes: r.report.notes };
+		const rec: StepRecord = { op: step.op, params: step.params, ledger: [...r.ledgerEntries, ...declared], summary: r.report.summary, notes: r.report.notes, declared };
 		this.push(
 			docReplacePiece(this.doc, key, (q) => ({ ...q, geometry: r.piece, steps: [...q.steps, rec] })),
 			label ?? `${p.name}: ${r.report.summary}`
@@ -386,6 +405,46 @@ export class EditorState {
 		return null;
 	}
 
+	/**
+	 * Panels merged into new pieces (join, carry): the results are saved as new pieces whose history starts
+	 * with a separate_result step naming what produced them; the sources are hidden here, like Separate.
+	 */
+	mergePieces(sources: readonly string[], made: readonly Piece[], originParams: (i: number) => Record<string, unknown>, label: string): string | null {
+		const src = sources.map((k) => this.piece(k));
+		if (src.some((p) => !p || p.readOnly)) return 'These pieces cannot be changed here.';
+		if (src.some((p) => p!.steps.length > 0)) return 'Save the changes to these pieces first: a merged piece starts from saved versions.';
+		const first = src[0]!;
+		const stamp = Date.now().toString(36);
+		const list: PieceEdit[] = made.map((g, i) => ({
+			key: `new-${stamp}-${i}`,
+			name: g.name,
+			cut: g.cut,
+			fabric: g.fabric,
+			baseVersionId: null,
+			baseNumber: 0,
+			base: null,
+			geometry: g,
+			steps: [],
+			offset: first.offset,
+			origin: { op: 'separate_result', params: { ...originParams(i), sources: src.map((p) => ({ pieceId: p!.key.startsWith('new-') ? null : p!.key, versionId: p!.baseVersionId })) } },
+			retired: false,
+			readOnly: false
+		}));
+		const gone = new Set(sources);
+		const pieces = [...this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, retired: true } : q)), ...list];
+		this.push({ pieces }, label);
+		this.selection.pieceKey = list[0]?.key ?? null;
+		return null;
+	}
+
+	/** Lay pieces at their own (drafting) coordinates: one shared offset, no spreading. */
+	layAsDrafted(keys: readonly string[]) {
+		const first = this.piece(keys[0] ?? null);
+		if (!first) return;
+		const gone = new Set(keys);
+		this.push({ pieces: this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, offset: first.offset } : q)) }, `${keys.length} pieces laid as drafted`);
+	}
+
 	movePiece(key: string, offset: Vec) {
 		const p = this.piece(key);
 		if (!p) return;
@@ -406,13 +465,16 @@ export class EditorState {
 			if (sel.geometry.darts.length) this.input.dartId = sel.geometry.darts[0].id;
 			if (sel.geometry.internalLines.length) this.input.lineId = sel.geometry.internalLines[0].id;
 		}
+		TOOLS[id].start?.(this);
 		this.toolMessage = null;
 		this.announce = `${TOOLS[id].name} tool`;
 	}
 	cancelTool() {
 		const keep = this.input.pieceKey;
+		const { keys, seamPairId, wedge, fuse, residualAs, adjust } = this.input;
 		this.input = freshInput();
 		this.input.pieceKey = keep;
+		Object.assign(this.input, { keys, seamPairId, wedge, fuse, residualAs, adjust });
 		if (keep) {
 			const g = this.piece(keep)?.geometry;
 			if (g?.darts.length) this.input.dartId = g.darts[0].id;
@@ -423,7 +485,7 @@ export class EditorState {
 	}
 	escape() {
 		if (this.helpOpen) this.helpOpen = false;
-		else if (this.tool !== 'select' && (this.input.target || this.input.points.length || this.input.handles.length)) this.cancelTool();
+		else if (this.tool !== 'select' && (this.input.target || this.input.points.length || this.input.handles.length || this.input.edgePicks.length)) this.cancelTool();
 		else if (this.tool !== 'select') this.setTool('select');
 		else this.selection.segmentIndex = -1;
 	}
@@ -493,7 +555,7 @@ export class EditorState {
 				r = c;
 				key = c.piece.id;
 			} else {
-				r = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p) });
+				r = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p), declared: this.declaredOf(p) });
 			}
 			const saved: PieceEdit = { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null };
 			this.doc = docReplacePiece(this.doc, p.key, () => saved);

@@ -1,4 +1,7 @@
 import { capTool } from './cap';
+import { carryTool } from './carry';
+import { joinTool } from './join';
+import { trueSeamTool } from './true-seam';
 import { allowanceTool, foldTool, grainTool, notchTool } from './marks';
 import { spreadTool } from './spread';
 import { measureTool } from './measure';
@@ -26,7 +29,10 @@ export const TOOLS: Record<ToolId, ToolDef> = {
 	grain: grainTool,
 	fold: foldTool,
 	allowance: allowanceTool,
-	measure: measureTool
+	measure: measureTool,
+	join: joinTool,
+	carry: carryTool,
+	true_seam: trueSeamTool
 };
 
-export const TOOL_ORDER: readonly ToolId[] = ['select', 'pivot', 'share', 'spread', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'notch', 'grain', 'fold', 'allowance', 'measure'];
+export const TOOL_ORDER: readonly ToolId[] = ['select', 'pivot', 'share', 'spread', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'join', 'carry', 'true_seam', 'notch', 'grain', 'fold', 'allowance', 'measure'];

@@ -18,7 +18,10 @@ export type ToolId =
 	| 'grain'
 	| 'fold'
 	| 'allowance'
-	| 'measure';
+	| 'measure'
+	| 'join'
+	| 'carry'
+	| 'true_seam';
 
 export interface PointerInfo {
 	readonly world: Vec;
@@ -47,6 +50,12 @@ export interface ToolPreview {
 	readonly piece: Piece | null;
 	/** Further resulting pieces (separate). */
 	readonly pieces?: readonly Piece[];
+	/** Vertical gap between the resulting pieces (mm; default 25, as Separate lays them). */
+	readonly piecesGapMm?: number;
+	/** The overlay is in world mm (not in the coordinates of `pieceKey`). */
+	readonly overlayWorld?: boolean;
+	/** Pieces the preview replaces (not drawn while it shows). */
+	readonly hides?: readonly string[];
 	readonly error: string | null;
 	readonly readouts: readonly Readout[];
 	readonly ledger: readonly LedgerEntry[];
@@ -65,6 +74,8 @@ export interface ToolDef {
 	/** Changes pieces (hidden for read-only roles). */
 	readonly edits: boolean;
 	hint(s: EditorState): string;
+	/** Defaults picked when the tool is chosen. */
+	start?(s: EditorState): void;
 	preview?(s: EditorState): ToolPreview | null;
 	/** Pointer pressed; return true to follow the drag. */
 	down?(s: EditorState, p: PointerInfo): boolean;

@@ -1,0 +1,207 @@
+import { segmentFlatten, vecDistance, vecLerp, type Path, type Vec } from '$lib/geometry';
+import { carry, type SeamPair } from '$lib/pattern/panels';
+import type { EditorState } from '../editor-state.svelte';
+import { fmtDeg, fmtLength } from '../units';
+import { opPieces, storedPair } from './seams';
+import { emptyPreview, type OverlayItem, type Readout, type ToolDef, type ToolPreview } from './types';
+
+/** The picked panels in seam order (centre front first) with the stored seam pairs between them. */
+export function carryChain(s: EditorState): { keys: string[]; pairs: SeamPair[] } | string {
+	const picked = new Set(s.input.keys);
+	if (picked.size < 2) return 'Pick at least two panels (Shift+click, or tick them above).';
+	const next = new Map<string, { b: string; pair: SeamPair }>();
+	const isB = new Set<string>();
+	for (const sp of s.seamPairs) {
+		if (!picked.has(sp.aPieceId) || !picked.has(sp.bPieceId)) continue;
+		const pair = storedPair(s, sp);
+		if (!pair) continue;
+		// the seam's own name in the operation's messages and ledger labels
+		const named = sp.label && !s.seamPairs.some((x) => x !== sp && x.label === sp.label) ? { ...pair, id: sp.label } : pair;
+		next.set(sp.aPieceId, { b: sp.bPieceId, pair: named });
+		isB.add(sp.bPieceId);
+	}
+	const starts = [...picked].filter((k) => !isB.has(k));
+	if (starts.length !== 1) return 'The picked panels are not one row joined by seam pairs (each panel sewn to the next); add the missing seam pairs.';
+	const keys = [starts[0]];
+	const pairs: SeamPair[] = [];
+	while (next.has(keys[keys.length - 1]) && keys.length <= picked.size) {
+		const n = next.get(keys[keys.length - 1])!;
+		pairs.push(n.pair);
+		keys.push(n.b);
+	}
+	if (keys.length !== picked.size) return 'The picked panels are not one row joined by seam pairs.';
+	return { keys, pairs };
+}
+
+/** Panels laid at their own drafting coordinates (one shared offset), as carry needs them. */
+export function panelsAsDrafted(s: EditorState, keys: readonly string[]): boolean {
+	const o = s.piece(keys[0])?.offset;
+	return !!o && keys.every((k) => {
+		const q = s.piece(k)?.offset;
+		return !!q && Math.abs(q.x - o.x) < 1e-9 && Math.abs(q.y - o.y) < 1e-9;
+	});
+}
+
+function styleLinePath(h: readonly Vec[]): Path {
+	return { segments: [{ kind: 'cubic', p0: h[0], p1: h[1], p2: h[2], p3: h[3] }] };
+}
+
+const straight = (a: Vec, b: Vec): Vec[] => [a, vecLerp(a, b, 1 / 3), vecLerp(a, b, 2 / 3), b];
+
+function local(s: EditorState, world: Vec): Vec {
+	const o = s.piece(s.input.keys[0] ?? null)?.offset ?? { x: 0, y: 0 };
+	return { x: world.x - o.x, y: world.y - o.y };
+}
+
+function carryRun(s: EditorState) {
+	const chain = carryChain(s);
+	if (typeof chain === 'string') return { error: chain } as const;
+	if (!panelsAsDrafted(s, chain.keys)) return { error: 'The panels are spread out on the table: lay them as drafted to draw the style line across them.', chain } as const;
+	const h = s.input.handles;
+	if (h.length !== 4 || vecDistance(h[0], h[3]) < 1) return { chain } as const;
+	const op = opPieces(s, chain.keys);
+	if (!op) return { error: 'A panel is missing.' } as const;
+	const styleLine = styleLinePath(h);
+	const r = carry(op.pieces, chain.pairs.map(op.pairFor), { styleLine, fuse: s.input.fuse, residualAs: s.input.residualAs });
+	return { chain, styleLine, r } as const;
+}
+
+/** Carry: cut the panels along one style line and join one side, closing their wedges into the style seam. */
+export const carryTool: ToolDef = {
+	id: 'carry',
+	name: 'Carry',
+	key: 'k',
+	icon: 'M4 4 L4 20 M10 4 L9 20 M15 4 L16 20 M20 4 L20 20 M2 13 C8 16 16 16 22 13',
+	edits: true,
+	hint(s) {
+		const h = s.input.handles;
+		if (s.input.keys.length < 2) return 'Shift+click the panels to carry (or tick them in the form).';
+		if (h.length === 0) return 'Drag across the panels to draw the style line (or click its start, then its end).';
+		if (s.input.dragging) return 'Click where the style line ends.';
+		return 'Drag the ends or the round handles; watch the reach line and the residuals. Enter or Apply carries.';
+	},
+	start(s) {
+		// the panels of an under-structure: every editable piece marking a divergence point
+		s.input.keys = s.visible.filter((p) => !p.readOnly && p.geometry.apexes.some((a) => a.kind === 'divergence')).map((p) => p.key);
+		const c = carryChain(s);
+		if (typeof c !== 'string') s.input.keys = c.keys;
+	},
+	down(s, p) {
+		if (p.shift) {
+			const k = p.hit?.pieceKey;
+			if (k && !s.piece(k)?.readOnly) s.input.keys = s.input.keys.includes(k) ? s.input.keys.filter((x) => x !== k) : [...s.input.keys, k];
+			return false;
+		}
+		if (s.input.keys.length < 2) return false;
+		const at = local(s, p.snap.kind === 'grid' || p.snap.kind === 'free' ? p.world : p.snap.world);
+		const h = s.input.handles;
+		if (s.input.dragging) {
+			s.input.handles = straight(h[0], at);
+			s.input.dragging = false;
+			return false;
+		}
+		if (h.length === 4) {
+			const i = h.findIndex((q) => vecDistance(q, local(s, p.world)) < s.tolMm(10));
+			if (i >= 0) {
+				s.input.dragIndex = i;
+				return true;
+			}
+			return false;
+		}
+		s.input.handles = straight(at, at);
+		s.input.dragIndex = 3;
+		return true;
+	},
+	move(s, p) {
+		const i = s.input.dragIndex;
+		if (i < 0) return;
+		const at = local(s, p.world);
+		const h = s.input.handles;
+		// while the line is being drawn it stays straight; afterwards each handle moves alone
+		if (i === 3 && vecDistance(h[1], vecLerp(h[0], h[3], 1 / 3)) < 1e-6 && vecDistance(h[2], vecLerp(h[0], h[3], 2 / 3)) < 1e-6) s.input.handles = straight(h[0], at);
+		else s.input.handles = h.map((q, k) => (k === i ? at : q));
+	},
+	up(s, _p, moved) {
+		if (!moved && s.input.handles.length === 4 && vecDistance(s.input.handles[0], s.input.handles[3]) < 1) s.input.dragging = true;
+		s.input.dragIndex = -1;
+	},
+	commit(s) {
+		const run = carryRun(s);
+		if (!('r' in run) || !run.r) return;
+		if (!run.r.ok) {
+			s.toolMessage = run.r.error.message;
+			return;
+		}
+		const { chain, styleLine, r } = run;
+		const seamPairIds = chain.pairs.map((p) => s.seamPairs.find((x) => x.id === p.id || x.label === p.id)?.id ?? p.id);
+		const err = s.mergePieces(
+			chain.keys,
+			r.pieces,
+			(i) => ({ from: 'carry', styleLine, fuse: s.input.fuse, residualAs: s.input.residualAs, seamPairIds, part: i === 0 ? `joined ${s.input.fuse} the style line` : `other side, part ${i}` }),
+			`${chain.keys.length} panels carried into one seam — ${r.report.summary}`
+		);
+		s.toolMessage = err;
+		if (!err) s.setTool('select');
+	},
+	preview(s): ToolPreview | null {
+		const run = carryRun(s);
+		const h = s.input.handles;
+		const overlay: OverlayItem[] = [];
+		const keys = 'chain' in run && run.chain ? run.chain.keys : s.input.keys;
+		// the picked panels, outlined
+		for (const k of keys) {
+			const p = s.piece(k);
+			if (!p) continue;
+			const pts = p.geometry.outline.segments.flatMap((g) => segmentFlatten(g, 0.5));
+			overlay.push({ kind: 'line', points: [...pts, pts[0]].map((q) => ({ x: q.x + p.offset.x, y: q.y + p.offset.y })), tone: 'select' });
+		}
+		const outlines = overlay.length;
+		const o = s.piece(keys[0] ?? null)?.offset ?? { x: 0, y: 0 };
+		const W = (q: Vec): Vec => ({ x: q.x + o.x, y: q.y + o.y });
+		if (h.length === 4) {
+			overlay.push({ kind: 'line', points: segmentFlatten(styleLinePath(h).segments[0], 0.3).map(W), tone: 'preview' });
+			if (vecDistance(h[0], h[3]) >= 1) {
+				overlay.push({ kind: 'line', points: [W(h[0]), W(h[1])], tone: 'select', dashed: true }, { kind: 'line', points: [W(h[3]), W(h[2])], tone: 'select', dashed: true });
+				overlay.push(...h.map((q, i) => ({ kind: 'handle' as const, at: W(q), active: i === s.input.dragIndex })));
+			}
+		}
+		const base: ToolPreview = { ...emptyPreview(keys[0] ?? null, 'error' in run ? (run.error ?? null) : null), overlay, overlayWorld: true };
+		if (!('r' in run) || !run.r) return keys.length ? { ...base, readouts: [{ label: 'Panels', value: String(keys.length) }] } : base;
+		const r = run.r;
+		if (!r.ok) return { ...base, error: r.error.message };
+		overlay.splice(0, outlines);
+		for (const e of r.styleSeamEdges) overlay.push({ kind: 'line', points: e.segments.flatMap((g) => segmentFlatten(g, 0.3)).map(W), tone: 'measure' });
+		overlay.push({ kind: 'line', points: r.reachLine.segments.flatMap((g) => segmentFlatten(g, 0.3)).map(W), tone: 'reach', dashed: true });
+		const apexes = run.chain.keys.flatMap((k) => s.piece(k)?.geometry.apexes ?? []);
+		const mm = (v: number) => fmtLength(v, s.unit);
+		const seamName = (id: string) => s.seamPairs.find((x) => x.id === id)?.label || id;
+		for (const res of r.residuals) {
+			const D = apexes.find((a) => a.id === res.apexId)?.point;
+			if (!D) continue;
+			overlay.push({ kind: 'point', at: W(D), tone: 'bad' }, { kind: 'label', at: W({ x: D.x, y: D.y - 4 }), text: `${seamName(res.seamId)}: ${mm(res.distanceMm)} off · ${fmtDeg(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line` });
+		}
+		const carried = r.report.values.carriedAngleRad ?? 0;
+		const readouts: Readout[] = [
+			{ label: 'Panels', value: String(run.chain.keys.length) },
+			{ label: 'Carried into the style seam', value: fmtDeg(carried), tone: r.residuals.length ? 'warn' : 'ok' },
+			{ label: 'Style seam (joined side)', value: mm(r.styleSeamLengthMm) },
+			{ label: 'Style line (other side)', value: mm(r.otherSideSeamLengthMm) },
+			{ label: 'Shaping moved', value: mm(r.shapingMovedMm) }
+		];
+		if (!r.residuals.length) readouts.push({ label: 'Residuals', value: 'none: the line reaches every divergence point', tone: 'ok' });
+		for (const res of r.residuals) {
+			readouts.push({ label: `Residual at ${seamName(res.seamId)}`, value: `${mm(res.distanceMm)} off · ${fmtDeg(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line`, tone: 'bad' });
+		}
+		return {
+			...base,
+			piece: null,
+			pieces: r.pieces,
+			piecesGapMm: 0,
+			hides: run.chain.keys,
+			readouts,
+			ledger: r.ledgerEntries,
+			notes: [r.report.summary, ...r.report.notes],
+			canCommit: true
+		};
+	}
+};
