@@ -67,7 +67,7 @@ describe('pattern editor: panel tools', () => {
 		await editorOpen(page, f.editorUrl);
 		await page.keyboard.press('j');
 		expect(await page.getAttribute('[data-tool="join"]', 'aria-pressed')).toBe('true');
-		await expect.poll(() => readouts(page)).toContain('Wedge closed');
+		await expect.poll(() => readouts(page)).toContain('Wedge at the divergence point');
 		await pageScreenshot(page, 'editor-join-closed');
 		await page.check('input[name="join-wedge"][value="keep_as_dart"]');
 		await expect.poll(() => readouts(page)).toMatch(/Kept as a dart\s*\S+-dart/);

@@ -66,8 +66,10 @@ export const joinTool: ToolDef = {
 		const { c, a, b, r } = run;
 		const seam = pairOverlay(s, c.pair);
 		overlay.push({ kind: 'line', points: seam.a, tone: 'select' }, { kind: 'line', points: seam.b, tone: 'select', dashed: true });
-		if (!r.ok) return { ...emptyPreview(null, r.error.message), overlay };
-		const angle = r.report.values.closedAngleRad ?? 0;
+		if (!r.ok) return { ...emptyPreview(null, r.error.message), overlay, overlayWorld: true };
+		// on the merged piece (drawn where piece a lies) the seam is edge a
+		overlay.splice(overlay.length - 1, 1);
+		const angle = Math.abs(r.ledgerEntries[0]?.angleRad ?? 0);
 		const dart = r.pieces[0].darts.find((d) => !a.darts.some((x) => x.id === d.id) && !b.darts.some((x) => x.id === d.id));
 		return {
 			pieceKey: c.pair.a.pieceId,
@@ -77,8 +79,8 @@ export const joinTool: ToolDef = {
 			error: null,
 			readouts: [
 				{ label: 'Seam', value: c.label },
-				{ label: 'Wedge closed', value: fmtDeg(angle) },
-				{ label: 'Kept as a dart', value: dart ? dart.id : 'none' },
+				{ label: 'Wedge at the divergence point', value: fmtDeg(angle) },
+				{ label: s.input.wedge === 'close' ? 'Closed; opened as a dart' : 'Kept as a dart', value: dart ? dart.id : 'none' },
 				{ label: 'Area before', value: fmtArea(r.report.values.areaBeforeMm2 ?? 0, s.unit) },
 				{ label: 'Area after', value: fmtArea(pieceMetrics(r.pieces[0]).areaMm2, s.unit) }
 			],

@@ -16,7 +16,7 @@ function trueRun(s: EditorState) {
 	if (!op) return null;
 	const adj = s.input.adjust;
 	const adjust = adj === 'none' ? undefined : { side: adj[0] as 'a' | 'b', end: (adj.endsWith('start') ? 'start' : 'end') as 'start' | 'end' };
-	return { c, keys, before: op.pieces, r: trueSeam(op.pieces, op.pairFor(c.pair), { adjust }), adjust };
+	return { c, keys, before: op.pieces, r: trueSeam(op.pieces, { ...op.pairFor(c.pair), id: c.label }, { adjust }), adjust };
 }
 
 /** The outline points the truing moved, as a reshape step (ends and Bézier handles). */
@@ -73,7 +73,7 @@ export const trueSeamTool: ToolDef = {
 			ledgerEntry({
 				apexId: null,
 				kind: lengthMm < 0 ? 'removed_ease' : 'fullness',
-				refId: run.c.pair.id,
+				refId: run.c.label,
 				label: `seam "${run.c.label}" trued: edge ${moved >= 0 ? 'lengthened' : 'shortened'} by ${Math.abs(moved).toFixed(2)} mm`,
 				angleRad: 0,
 				lengthMm,
