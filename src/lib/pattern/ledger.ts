@@ -11,7 +11,7 @@ import type { Piece } from './piece-schema';
 /** Kinds that move shaping around an apex: at each apex they must sum to zero. */
 export const SHAPING_KINDS = ['dart', 'pleat', 'tuck', 'seam'] as const;
 /** Kinds that are explicit, labelled changes (allowed to change area, seam length or apex angle). */
-export const LABELLED_KINDS = ['fullness', 'removed_ease', 'clearance'] as const;
+export const LABELLED_KINDS = ['fullness', 'removed_ease', 'clearance', 'trued_seam'] as const;
 
 const finite = () => z.number().refine((n) => Number.isFinite(n), { message: 'must be a finite number' });
 

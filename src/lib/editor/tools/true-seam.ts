@@ -72,7 +72,7 @@ export const trueSeamTool: ToolDef = {
 		const declared = [
 			ledgerEntry({
 				apexId: null,
-				kind: lengthMm < 0 ? 'removed_ease' : 'fullness',
+				kind: 'trued_seam',
 				refId: run.c.label,
 				label: `seam "${run.c.label}" trued: edge ${moved >= 0 ? 'lengthened' : 'shortened'} by ${Math.abs(moved).toFixed(2)} mm`,
 				angleRad: 0,
