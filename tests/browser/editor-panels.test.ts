@@ -69,8 +69,12 @@ describe('pattern editor: panel tools', () => {
 		expect(await page.getAttribute('[data-tool="join"]', 'aria-pressed')).toBe('true');
 		await expect.poll(() => readouts(page)).toContain('Wedge at the divergence point');
 		await pageScreenshot(page, 'editor-join-closed');
+		const canvas = page.locator('[data-testid="editor-canvas"]');
+		const closedPixels = await canvas.screenshot();
 		await page.check('input[name="join-wedge"][value="keep_as_dart"]');
 		await expect.poll(() => readouts(page)).toMatch(/Kept as a dart\s*\S+-dart/);
+		// the preview on the canvas follows the choice, not only the readouts
+		await expect.poll(async () => Buffer.compare(await canvas.screenshot(), closedPixels) !== 0, { timeout: 10_000 }).toBe(true);
 		await pageScreenshot(page, 'editor-join-dart');
 		await page.locator('[data-testid="editor-canvas"]').focus();
 		await page.keyboard.press('Enter');
