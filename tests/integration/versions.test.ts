@@ -182,6 +182,34 @@ describe('saving versions', () => {
 		expect((await sign.json()).error.message).toMatch(/trued/);
 	});
 
+	it('allows sign-off once the seam pair is corrected (its ease or moved edge ends patched)', async () => {
+		const { styleId, pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const waist = block.outline.segments[7];
+		const cf = block.outline.segments[11];
+		const created = await c.api('POST', `/api/studios/${studioId}/styles/${styleId}/seam-pairs`, {
+			label: 'waist to centre front',
+			a: { pieceId, from: waist.p0, to: waist.kind === 'line' ? waist.p1 : waist.p3 },
+			b: { pieceId, from: cf.p0, to: cf.kind === 'line' ? cf.p1 : cf.p3 },
+			toleranceMm: 1.6
+		});
+		const pair = (await created.json()).seamPair;
+		const d = await signedInClient(app.baseUrl, designer);
+		const refused = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' });
+		expect(refused.status).toBe(409);
+		const aLen = Math.hypot(waist.p0.x - (waist.kind === 'line' ? waist.p1.x : waist.p3.x), waist.p0.y - (waist.kind === 'line' ? waist.p1.y : waist.p3.y));
+		const bLen = Math.hypot(cf.p0.x - (cf.kind === 'line' ? cf.p1.x : cf.p3.x), cf.p0.y - (cf.kind === 'line' ? cf.p1.y : cf.p3.y));
+		// the centre-front edge now ends where its length equals the waist's (as after truing an end)
+		const cfEnd = cf.kind === 'line' ? cf.p1 : cf.p3;
+		const along = { x: cf.p0.x + ((cfEnd.x - cf.p0.x) * aLen) / bLen, y: cf.p0.y + ((cfEnd.y - cf.p0.y) * aLen) / bLen };
+		const patched = await c.api('PATCH', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`, { b: { from: cf.p0, to: along } });
+		expect(patched.status).toBe(200);
+		expect((await d.api('PATCH', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`, { toleranceMm: 3 })).status).toBe(403);
+		expect((await c.api('PATCH', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`, {})).status).toBe(400);
+		const signed = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' });
+		expect(signed.status).toBe(200);
+	});
+
 	it('lets a designer sign off a version; the earlier signed-off one becomes superseded', async () => {
 		const { pieceId, v1 } = await styleWithPiece();
 		const d = await signedInClient(app.baseUrl, designer);

@@ -52,3 +52,28 @@ export async function seamPairsOfStyle(db: DbOrTx, styleId: string): Promise<Sea
 		SeamPairRow[]
 	>;
 }
+
+export async function seamPairsInStyle(db: DbOrTx, styleId: string, seamPairId: string): Promise<SeamPairRow | undefined> {
+	return db.selectFrom('seam_pairs').select(columns).where('style_id', '=', styleId).where('id', '=', seamPairId).executeTakeFirst() as Promise<
+		SeamPairRow | undefined
+	>;
+}
+
+export async function seamPairsUpdate(
+	db: DbOrTx,
+	seamPairId: string,
+	patch: { label?: string; aEdge?: SeamEdge; bEdge?: SeamEdge; allowedEaseMm?: number; toleranceMm?: number }
+): Promise<SeamPairRow | undefined> {
+	return db
+		.updateTable('seam_pairs')
+		.set({
+			...(patch.label !== undefined ? { label: patch.label } : {}),
+			...(patch.aEdge ? { a_edge: JSON.stringify(patch.aEdge) } : {}),
+			...(patch.bEdge ? { b_edge: JSON.stringify(patch.bEdge) } : {}),
+			...(patch.allowedEaseMm !== undefined ? { allowed_ease_mm: patch.allowedEaseMm } : {}),
+			...(patch.toleranceMm !== undefined ? { tolerance_mm: patch.toleranceMm } : {})
+		})
+		.where('id', '=', seamPairId)
+		.returning(columns)
+		.executeTakeFirst() as Promise<SeamPairRow | undefined>;
+}

@@ -59,3 +59,15 @@ export const seamPairCreateSchema = z.object({
 	allowedEaseMm: z.number().finite().min(-50).max(100).default(0),
 	toleranceMm: z.number().finite().positive().max(20).default(1.6)
 });
+
+/** Moving a seam pair's edge ends (after truing) or changing its ease and tolerance. */
+export const seamPairPatchSchema = z
+	.object({
+		label: z.string().trim().max(120),
+		a: z.object({ from: vecSchema, to: vecSchema }),
+		b: z.object({ from: vecSchema, to: vecSchema }),
+		allowedEaseMm: z.number().finite().min(-50).max(100),
+		toleranceMm: z.number().finite().positive().max(20)
+	})
+	.partial()
+	.refine((v) => Object.keys(v).length > 0, { message: 'Say what to change.' });

@@ -1,0 +1,30 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { apiRoute, parseParams, readJson } from '$lib/server/api';
+import { EDITORS, requireRole } from '$lib/server/authz';
+import { db } from '$lib/server/db';
+import { ApiError } from '$lib/server/http-errors';
+import { seamPairsInStyle, seamPairsUpdate } from '$lib/server/repositories/seam-pairs';
+import { uuidSchema } from '$lib/server/validation';
+import { styleOr404 } from '$lib/server/versions/access';
+import { seamPairPatchSchema } from '$lib/server/versions/schemas';
+import type { RequestHandler } from './$types';
+
+const params = z.object({ studioId: z.string(), styleId: uuidSchema, seamPairId: uuidSchema });
+
+/** Move a seam pair's edge ends (after a seam is trued) or change its ease and tolerance. */
+export const PATCH: RequestHandler = apiRoute(async (event) => {
+	const { studioId } = await requireRole(event, EDITORS);
+	const { styleId, seamPairId } = parseParams(event.params, params);
+	await styleOr404(db(), studioId, styleId);
+	if (!(await seamPairsInStyle(db(), styleId, seamPairId))) throw new ApiError(404, 'not_found', 'No such seam pair in this style.');
+	const body = await readJson(event.request, seamPairPatchSchema);
+	const pair = await seamPairsUpdate(db(), seamPairId, {
+		label: body.label,
+		aEdge: body.a,
+		bEdge: body.b,
+		allowedEaseMm: body.allowedEaseMm,
+		toleranceMm: body.toleranceMm
+	});
+	return json({ seamPair: pair });
+});
