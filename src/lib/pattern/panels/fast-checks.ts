@@ -80,17 +80,22 @@ export function gridSelfIntersection(outline: Outline): Vec[] {
 	const cell = Math.max((2 * total) / n, 1e-6);
 	const nx = Math.max(1, Math.ceil((maxX - minX) / cell) + 3);
 	const eps = 1e-9;
-	// (cell key, segment) pairs packed in one float and sorted natively: runs of equal keys are the cells
-	let packed = new Float64Array(Math.max(16, 2 * n));
+	// (cell key, segment) pairs, grouped by cell with a radix sort (11 bits a pass): runs of equal keys
+	// are the cells
+	let keys = new Float64Array(Math.max(16, 4 * n));
+	let vals = new Uint32Array(keys.length);
 	let m = 0;
-	const SEG = 2 ** 24;
 	const push = (key: number, i: number) => {
-		if (m === packed.length) {
-			const grown = new Float64Array(packed.length * 2);
-			grown.set(packed);
-			packed = grown;
+		if (m === keys.length) {
+			const k2 = new Float64Array(keys.length * 2);
+			k2.set(keys);
+			keys = k2;
+			const v2 = new Uint32Array(vals.length * 2);
+			v2.set(vals);
+			vals = v2;
 		}
-		packed[m++] = key * SEG + i;
+		keys[m] = key;
+		vals[m++] = i;
 	};
 	for (let i = 0; i < n; i++) {
 		const s = segs[i];
@@ -116,18 +121,18 @@ export function gridSelfIntersection(outline: Outline): Vec[] {
 			}
 		}
 	}
-	const sorted = packed.subarray(0, m).sort();
+	const order = radixOrder(keys, m);
 	const out: Vec[] = [];
 	const seen = new Set<number>();
 	let start = 0;
 	while (start < m) {
-		const key = Math.floor(sorted[start] / SEG);
+		const key = keys[order[start]];
 		let end = start + 1;
-		while (end < m && Math.floor(sorted[end] / SEG) === key) end++;
+		while (end < m && keys[order[end]] === key) end++;
 		for (let a = start; a < end; a++) {
-			const ia = sorted[a] - key * SEG;
+			const ia = vals[order[a]];
 			for (let b = a + 1; b < end; b++) {
-				const ib = sorted[b] - key * SEG;
+				const ib = vals[order[b]];
 				const i = Math.min(ia, ib);
 				const j = Math.max(ia, ib);
 				if (i === j || j - i === 1 || (i === 0 && j === n - 1)) continue;
@@ -142,6 +147,32 @@ export function gridSelfIntersection(outline: Outline): Vec[] {
 		start = end;
 	}
 	return out;
+}
+
+/** Indices 0..m−1 ordered by their (non-negative integer) key: stable LSD radix sort, 11 bits a pass. */
+function radixOrder(keys: Float64Array, m: number): Uint32Array {
+	let maxKey = 0;
+	for (let i = 0; i < m; i++) if (keys[i] > maxKey) maxKey = keys[i];
+	let idx = new Uint32Array(m);
+	let tmp = new Uint32Array(m);
+	for (let i = 0; i < m; i++) idx[i] = i;
+	const count = new Uint32Array(2048);
+	for (let div = 1; div <= maxKey; div *= 2048) {
+		count.fill(0);
+		for (let i = 0; i < m; i++) count[Math.floor(keys[idx[i]] / div) % 2048]++;
+		let sum = 0;
+		for (let b = 0; b < 2048; b++) {
+			const c = count[b];
+			count[b] = sum;
+			sum += c;
+		}
+		for (let i = 0; i < m; i++) {
+			const v = idx[i];
+			tmp[count[Math.floor(keys[v] / div) % 2048]++] = v;
+		}
+		[idx, tmp] = [tmp, idx];
+	}
+	return idx;
 }
 
 function segmentsTouch(a: Vec, b: Vec, c: Vec, d: Vec): Vec | null {
