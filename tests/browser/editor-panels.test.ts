@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { outlineBetween, pathBoundingBox, pathLength, pathFromPolyline, type Vec } from '../../src/lib/geometry';
+import { outlineBetween, pathBoundingBox, pathLength, pathFromPolyline, vecDistance, type Vec } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { underStructurePanels } from '../../src/lib/pattern/panels/fixtures/under-structure-panels';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
@@ -35,6 +35,14 @@ async function panelsStyle(browser: Browser, baseUrl: string, count: number, all
 		if (!r.ok()) throw new Error(`seam pair: ${r.status()} ${await r.text()}`);
 	}
 	return { context, page, ...s, editorUrl: `${baseUrl}/studios/${s.studioId}/styles/${s.styleId}/edit` };
+}
+
+type StoredPair = { id: string; label: string; aPieceId: string; bPieceId: string; aEdge: { from: Vec; to: Vec }; bEdge: { from: Vec; to: Vec }; toleranceMm: number };
+
+/** The length along a piece's outline from `from` forward to `to` (as the server walks a stored edge). */
+function forward(piece: Piece, e: { from: Vec; to: Vec }): number {
+	const loc = (p: Vec) => outlineNearestLocation(piece.outline, p);
+	return pathLength(outlineBetween(piece.outline, loc(e.from), loc(e.to)));
 }
 
 const readouts = (page: Page) => page.locator('[data-testid="tool-readouts"]').textContent();
@@ -118,6 +126,19 @@ describe('pattern editor: panel tools', () => {
 		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();
 		// three panels (hidden here) and four new pieces: the band below the line and the three parts above
 		expect(style.pieces.length).toBe(7);
+		// the style seam is stored: one seam pair from the joined band to each part above the line
+		const made = (style.pieces as { id: string; shown: { geometry: Piece } }[]).filter((p) => !f.pieceIds.includes(p.id));
+		const carried = (style.seamPairs as StoredPair[]).filter((sp) => sp.label.startsWith('style seam'));
+		expect(carried).toHaveLength(3);
+		const band = made.find((p) => carried.every((sp) => sp.aPieceId === p.id));
+		expect(band).toBeTruthy();
+		expect(new Set(carried.map((sp) => sp.bPieceId)).size).toBe(3);
+		for (const sp of carried) {
+			expect(made.some((p) => p.id === sp.bPieceId)).toBe(true);
+			const la = forward(made.find((p) => p.id === sp.aPieceId)!.shown.geometry, sp.aEdge);
+			const lb = forward(made.find((p) => p.id === sp.bPieceId)!.shown.geometry, sp.bEdge);
+			expect(Math.abs(la - lb)).toBeLessThan(sp.toleranceMm);
+		}
 		await f.context.close();
 	});
 
@@ -137,8 +158,23 @@ describe('pattern editor: panel tools', () => {
 		await pageScreenshot(page, 'editor-true-seam-applied');
 		const checks = await page.locator('[data-testid="verify-checks"] li').allTextContents();
 		expect(checks.filter((c) => !c.startsWith('✓'))).toEqual([]);
+		const before = ((await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json()).seamPairs as StoredPair[])[0];
 		await saveAll(page, 'Seam trued with 3 mm ease');
 		expect(await page.locator('[data-testid="save-report"]').textContent()).toContain('version 2 saved');
+		// the stored pair follows the trued edge: its moved end is where the truing put it, the other end stays
+		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();
+		const after = (style.seamPairs as StoredPair[]).find((sp) => sp.id === before.id)!;
+		expect(after.bEdge).toEqual(before.bEdge);
+		const movedEnds = [vecDistance(after.aEdge.from, before.aEdge.from), vecDistance(after.aEdge.to, before.aEdge.to)];
+		expect(movedEnds.filter((d) => d > 0.01)).toHaveLength(1);
+		// measured again from the stored pair, the seam reads true
+		await page.locator('[data-testid="editor-canvas"]').focus();
+		await page.keyboard.press('t');
+		await expect.poll(() => readouts(page)).toMatch(/Reads\s*true/);
+		expect(await readouts(page)).toMatch(/Difference a − b\s*\+3\.0 mm/);
+		const a = (style.pieces as { id: string; shown: { geometry: Piece } }[]).find((p) => p.id === after.aPieceId)!.shown.geometry;
+		const b = (style.pieces as { id: string; shown: { geometry: Piece } }[]).find((p) => p.id === after.bPieceId)!.shown.geometry;
+		expect(forward(a, after.aEdge)).toBeGreaterThan(forward(b, after.bEdge));
 		await f.context.close();
 	});
 });

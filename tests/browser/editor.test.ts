@@ -3,6 +3,8 @@ import type { Browser } from 'playwright-core';
 import AxeBuilder from '@axe-core/playwright';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
+import { outlineBetween, pathLength } from '../../src/lib/geometry';
+import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { browserLaunch, pageScreenshot } from './chromium';
 import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, toPage } from './editor-helpers';
 
@@ -134,6 +136,34 @@ describe('pattern editor', () => {
 		expect(await page.locator('[data-testid="recipe"]').textContent()).toContain('No steps yet');
 		await page.keyboard.press('Control+Shift+z');
 		expect(await page.evaluate(() => window.dartelierEditor!.historyLength())).toBe(1);
+
+		// redo the separate too and save: the two new pieces are stored with the seam pair between them
+		await page.keyboard.press('Control+Shift+z');
+		await expect.poll(() => page.evaluate(() => window.dartelierEditor!.pieceKeys().length)).toBe(2);
+		await page.fill('#save-message', 'Front cut along the style line');
+		await page.click('button:has-text("Save version")');
+		await page.waitForSelector('[data-testid="save-report"]', { timeout: 20_000 });
+		await page.waitForSelector('button:has-text("Save version")', { timeout: 20_000 });
+		expect(await page.locator('[role="alert"]').count()).toBe(0);
+		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();
+		type Side = { x: number; y: number };
+		type Pair = { label: string; aPieceId: string; bPieceId: string; aEdge: { from: Side; to: Side }; bEdge: { from: Side; to: Side }; toleranceMm: number };
+		const pairs = style.seamPairs as Pair[];
+		expect(pairs).toHaveLength(1);
+		const sp = pairs[0];
+		expect(sp.label).toContain('separated at');
+		expect(sp.toleranceMm).toBeCloseTo(1.6);
+		const made = (style.pieces as { id: string; shown: { geometry: Piece } }[]).filter((p) => p.id !== key);
+		expect(made.map((p) => p.id).sort()).toEqual([sp.aPieceId, sp.bPieceId].sort());
+		// each edge runs forward along its piece's outline over the cut, not round the rest of the piece
+		// (the rest of the two pieces differ in length, so a wrong turn on either side shows)
+		const along = (id: string, e: { from: Side; to: Side }) => {
+			const g = made.find((p) => p.id === id)!.shown.geometry;
+			return pathLength(outlineBetween(g.outline, outlineNearestLocation(g.outline, e.from), outlineNearestLocation(g.outline, e.to)));
+		};
+		const la = along(sp.aPieceId, sp.aEdge);
+		const lb = along(sp.bPieceId, sp.bEdge);
+		expect(Math.abs(la - lb)).toBeLessThan(sp.toleranceMm);
 		await f.context.close();
 	});
 

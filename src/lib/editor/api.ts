@@ -115,3 +115,29 @@ export async function pieceCreate(
 ): Promise<SaveResult & { piece: { id: string; name: string } }> {
 	return call(`/api/studios/${studioId}/styles/${styleId}/pieces`, { method: 'POST', body: JSON.stringify(body) });
 }
+
+type XY = { x: number; y: number };
+export interface SeamPairSide {
+	readonly pieceId: string;
+	readonly from: XY;
+	readonly to: XY;
+}
+
+/** Store a seam pair (edge ends in each piece's outline order). */
+export async function seamPairCreate(
+	studioId: string,
+	styleId: string,
+	body: { label: string; a: SeamPairSide; b: SeamPairSide; allowedEaseMm: number; toleranceMm: number }
+): Promise<{ seamPair: SeamPairInfo }> {
+	return call(`/api/studios/${studioId}/styles/${styleId}/seam-pairs`, { method: 'POST', body: JSON.stringify(body) });
+}
+
+/** Move a stored seam pair's edge ends (after truing) or change its ease and tolerance. */
+export async function seamPairPatch(
+	studioId: string,
+	styleId: string,
+	seamPairId: string,
+	body: { label?: string; a?: { from: XY; to: XY }; b?: { from: XY; to: XY }; allowedEaseMm?: number; toleranceMm?: number }
+): Promise<{ seamPair: SeamPairInfo }> {
+	return call(`/api/studios/${studioId}/styles/${styleId}/seam-pairs/${seamPairId}`, { method: 'PATCH', body: JSON.stringify(body) });
+}

@@ -1,4 +1,4 @@
-import type { Vec } from '$lib/geometry';
+import type { Path, Vec } from '$lib/geometry';
 import type { LedgerEntry } from '$lib/pattern/ledger';
 import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
@@ -17,6 +17,25 @@ export interface StepRecord {
 	readonly notes: readonly string[];
 	/** Labelled changes declared with this step (sent as the save's `declared`). */
 	readonly declared?: readonly LedgerEntry[];
+	/** A stored seam pair's edge moved by this step (True seam): its new ends, sent after the save. */
+	readonly seamEdit?: SeamEdit;
+}
+
+/** New ends (outline order) of one edge of a stored seam pair. */
+export interface SeamEdit {
+	readonly seamPairId: string;
+	readonly side: 'a' | 'b';
+	readonly from: Vec;
+	readonly to: Vec;
+}
+
+/** A seam pair made by Separate or Carry between new pieces (editor keys), stored after they are saved. */
+export interface PendingSeam {
+	readonly label: string;
+	readonly a: { readonly pieceKey: string; readonly edge: Path };
+	readonly b: { readonly pieceKey: string; readonly edge: Path };
+	readonly allowedEaseMm: number;
+	readonly toleranceMm: number;
 }
 
 export interface PieceEdit {
@@ -43,6 +62,8 @@ export interface PieceEdit {
 
 export interface EditorDoc {
 	readonly pieces: readonly PieceEdit[];
+	/** Seam pairs between new pieces, posted once every piece is saved (part of the document, so undo drops them). */
+	readonly pendingSeams?: readonly PendingSeam[];
 }
 
 export interface HistoryEntry {
@@ -55,5 +76,5 @@ export function pieceIsDirty(p: PieceEdit): boolean {
 }
 
 export function docReplacePiece(doc: EditorDoc, key: string, f: (p: PieceEdit) => PieceEdit): EditorDoc {
-	return { pieces: doc.pieces.map((p) => (p.key === key ? f(p) : p)) };
+	return { ...doc, pieces: doc.pieces.map((p) => (p.key === key ? f(p) : p)) };
 }

@@ -4,12 +4,14 @@ import { pieceMetrics } from '$lib/pattern/metrics';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { recipeReplayStep } from '$lib/pattern/verify/replay';
 import { versionVerify, type RecipeStepData } from '$lib/pattern/verify/version-verify';
-import { ApiFailure, pieceCreate, pieceLoad, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
-import { docReplacePiece, pieceIsDirty, type EditorDoc, type HistoryEntry, type PieceEdit, type StepRecord } from './doc';
+import type { SeamPair } from '$lib/pattern/panels';
+import { ApiFailure, pieceCreate, pieceLoad, seamPairCreate, seamPairPatch, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
+import { docReplacePiece, pieceIsDirty, type EditorDoc, type HistoryEntry, type PendingSeam, type PieceEdit, type SeamEdit, type StepRecord } from './doc';
 import { pieceDrawing } from './drawing';
 import { hitTest, snapPoint, type Hit, type PlacedPiece, type Snap, type SnapOptions } from './hit';
 import { editorApply, editorSeparate } from './ops';
 import { TOOLS } from './tools/registry';
+import { edgeEnds } from './tools/seams';
 import type { ToolId, ToolPreview } from './tools/types';
 import type { LengthUnit } from './units';
 import { CALIBRATION_KEY, DEFAULT_PX_PER_MM, fitBox, MAX_TRUE_FACTOR, screenToWorld, UNIT_KEY, worldToScreen, zoomAbout } from './view';
@@ -105,6 +107,19 @@ export interface Conflict {
 }
 
 const GAP_MM = 60;
+/** Seam pairs made by Separate and Carry: sewn to match (no ease), trued to 1/16 in. */
+const NEW_SEAM_TOLERANCE_MM = 1.6;
+
+/** A panel operation's seam pairs (pieces named by geometry id) as pending pairs between the new pieces' editor keys. */
+function pendingSeams(pairs: readonly SeamPair[], made: readonly PieceEdit[], label: (i: number, a: PieceEdit, b: PieceEdit) => string): PendingSeam[] {
+	const byId = new Map(made.map((p) => [p.geometry.id, p]));
+	return pairs.flatMap((sp, i) => {
+		const a = byId.get(sp.a.pieceId);
+		const b = byId.get(sp.b.pieceId);
+		if (!a || !b || a === b) return [];
+		return [{ label: label(i, a, b).slice(0, 120), a: { pieceKey: a.key, edge: sp.a.edge }, b: { pieceKey: b.key, edge: sp.b.edge }, allowedEaseMm: 0, toleranceMm: NEW_SEAM_TOLERANCE_MM }];
+	});
+}
 
 export class EditorState {
 	readonly studioId: string;
@@ -360,12 +375,12 @@ export class EditorState {
 	}
 
 	/** Apply one step to a piece; returns an error message or null. */
-	apply(key: string, step: RecipeStepData, label?: string, declared: readonly LedgerEntry[] = []): string | null {
+	apply(key: string, step: RecipeStepData, label?: string, declared: readonly LedgerEntry[] = [], seamEdit?: SeamEdit): string | null {
 		const p = this.piece(key);
 		if (!p || p.readOnly) return 'This piece cannot be changed here.';
 		const r = editorApply(p.geometry, step);
 		if (!r.ok) return r.error.message;
-		const rec: StepRecord = { op: step.op, params: step.params, ledger: [...r.ledgerEntries, ...declared], summary: r.report.summary, notes: r.report.notes, declared };
+		const rec: StepRecord = { op: step.op, params: step.params, ledger: [...r.ledgerEntries, ...declared], summary: r.report.summary, notes: r.report.notes, declared, ...(seamEdit ? { seamEdit } : {}) };
 		this.push(
 			docReplacePiece(this.doc, key, (q) => ({ ...q, geometry: r.piece, steps: [...q.steps, rec] })),
 			label ?? `${p.name}: ${r.report.summary}`
@@ -400,7 +415,9 @@ export class EditorState {
 			readOnly: false
 		}));
 		const pieces = this.doc.pieces.flatMap((q) => (q.key === key ? [{ ...q, retired: true }, ...made] : [q]));
-		this.push({ pieces }, `${p.name}: separated into ${made.length} pieces — ${r.report.summary}`);
+		const line = p.geometry.internalLines.find((l) => l.id === styleLineId);
+		const seams = pendingSeams(r.seamPairs, made, () => `${p.name} separated at ${line?.label || 'the style line'}`);
+		this.push({ pieces, pendingSeams: [...(this.doc.pendingSeams ?? []), ...seams] }, `${p.name}: separated into ${made.length} pieces — ${r.report.summary}`);
 		this.selection.pieceKey = made[0]?.key ?? null;
 		return null;
 	}
@@ -409,7 +426,14 @@ export class EditorState {
 	 * Panels merged into new pieces (join, carry): the results are saved as new pieces whose history starts
 	 * with a separate_result step naming what produced them; the sources are hidden here, like Separate.
 	 */
-	mergePieces(sources: readonly string[], made: readonly Piece[], originParams: (i: number) => Record<string, unknown>, label: string): string | null {
+	mergePieces(
+		sources: readonly string[],
+		made: readonly Piece[],
+		originParams: (i: number) => Record<string, unknown>,
+		label: string,
+		seamPairs: readonly SeamPair[] = [],
+		seamLabel: (i: number, a: PieceEdit, b: PieceEdit) => string = (i) => `seam ${i + 1}`
+	): string | null {
 		const src = sources.map((k) => this.piece(k));
 		if (src.some((p) => !p || p.readOnly)) return 'These pieces cannot be changed here.';
 		if (src.some((p) => p!.steps.length > 0)) return 'Save the changes to these pieces first: a merged piece starts from saved versions.';
@@ -432,7 +456,7 @@ export class EditorState {
 		}));
 		const gone = new Set(sources);
 		const pieces = [...this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, retired: true } : q)), ...list];
-		this.push({ pieces }, label);
+		this.push({ pieces, pendingSeams: [...(this.doc.pendingSeams ?? []), ...pendingSeams(seamPairs, list, seamLabel)] }, label);
 		this.selection.pieceKey = list[0]?.key ?? null;
 		return null;
 	}
@@ -442,7 +466,7 @@ export class EditorState {
 		const first = this.piece(keys[0] ?? null);
 		if (!first) return;
 		const gone = new Set(keys);
-		this.push({ pieces: this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, offset: first.offset } : q)) }, `${keys.length} pieces laid as drafted`);
+		this.push({ ...this.doc, pieces: this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, offset: first.offset } : q)) }, `${keys.length} pieces laid as drafted`);
 	}
 
 	movePiece(key: string, offset: Vec) {
@@ -518,6 +542,13 @@ export class EditorState {
 	async save(message: string): Promise<void> {
 		if (this.saving) return;
 		const todo = this.dirty;
+		if (!todo.length && this.doc.pendingSeams?.length) {
+			// pieces saved before, seam pairs not stored yet (the server refused them): try them again
+			this.saveError = null;
+			await this.storePendingSeams();
+			await this.refreshSeamPairs();
+			return;
+		}
 		if (!todo.length) {
 			this.saveError = 'Nothing to save: no piece has changed since its version.';
 			return;
@@ -537,10 +568,13 @@ export class EditorState {
 				if (!r) return;
 				reports.push(r);
 				this.saveReports = [...reports];
+				await this.storeSeamEdits(p);
 			}
+			await this.storePendingSeams();
 			this.past = [];
 			this.future = [];
 			this.announce = `Saved ${reports.map((r) => `${r.name} version ${r.number}`).join(', ')}.`;
+			await this.refreshSeamPairs();
 		} finally {
 			this.saving = null;
 		}
@@ -559,6 +593,10 @@ export class EditorState {
 			}
 			const saved: PieceEdit = { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null };
 			this.doc = docReplacePiece(this.doc, p.key, () => saved);
+			if (key !== p.key && this.doc.pendingSeams?.length) {
+				const k = (x: string) => (x === p.key ? key : x);
+				this.doc = { ...this.doc, pendingSeams: this.doc.pendingSeams.map((sp) => ({ ...sp, a: { ...sp.a, pieceKey: k(sp.a.pieceKey) }, b: { ...sp.b, pieceKey: k(sp.b.pieceKey) } })) };
+			}
 			if (this.selection.pieceKey === p.key) this.selection.pieceKey = key;
 			return { pieceKey: key, name: p.name, number: r.version.number, message, checks: r.checks, warnings: r.warnings };
 		} catch (e) {
@@ -569,6 +607,61 @@ export class EditorState {
 				this.saveError = `${p.name} was not saved: ${e instanceof Error ? e.message : String(e)} Your edits are kept.`;
 			}
 			return null;
+		}
+	}
+
+	/** A saved piece's trued seams: move the stored pairs' edge ends so the server measures the trued edges. */
+	private async storeSeamEdits(p: PieceEdit): Promise<void> {
+		// the last edit of each edge wins
+		const edits = new Map<string, SeamEdit>();
+		for (const st of p.steps) if (st.seamEdit) edits.set(`${st.seamEdit.seamPairId}:${st.seamEdit.side}`, st.seamEdit);
+		for (const e of edits.values()) {
+			try {
+				await seamPairPatch(this.studioId, this.styleId, e.seamPairId, { [e.side]: { from: e.from, to: e.to } });
+			} catch (err) {
+				const name = this.seamPairs.find((x) => x.id === e.seamPairId)?.label || 'a seam pair';
+				this.saveError = `${p.name} was saved, but ${name} still has its old edge ends: ${err instanceof Error ? err.message : String(err)}`;
+			}
+		}
+	}
+
+	/** Once every piece is saved: store the seam pairs Separate and Carry made, with the pieces' server ids. */
+	private async storePendingSeams(): Promise<void> {
+		const todo = this.doc.pendingSeams ?? [];
+		if (!todo.length) return;
+		const kept: PendingSeam[] = [];
+		const failed: string[] = [];
+		for (const sp of todo) {
+			const a = this.piece(sp.a.pieceKey);
+			const b = this.piece(sp.b.pieceKey);
+			if (!a || !b || a.retired || b.retired) continue; // a piece cut again or undone: the pair went with it
+			if (a.key.startsWith('new-') || b.key.startsWith('new-')) {
+				kept.push(sp);
+				continue;
+			}
+			try {
+				await seamPairCreate(this.studioId, this.styleId, {
+					label: sp.label,
+					a: { pieceId: a.key, ...edgeEnds(a.geometry, sp.a.edge) },
+					b: { pieceId: b.key, ...edgeEnds(b.geometry, sp.b.edge) },
+					allowedEaseMm: sp.allowedEaseMm,
+					toleranceMm: sp.toleranceMm
+				});
+			} catch (err) {
+				kept.push(sp);
+				failed.push(`${sp.label}: ${err instanceof Error ? err.message : String(err)}`);
+			}
+		}
+		this.doc = { ...this.doc, pendingSeams: kept };
+		if (failed.length) this.saveError = `The pieces were saved, but ${failed.length === 1 ? 'a seam pair was' : `${failed.length} seam pairs were`} not stored (${failed.join('; ')}).`;
+	}
+
+	/** Re-read the style's seam pairs (after storing or moving them). */
+	async refreshSeamPairs(): Promise<void> {
+		try {
+			this.seamPairs = (await styleLoad(this.studioId, this.styleId)).seamPairs;
+		} catch {
+			/* the old list stays until the next load */
 		}
 	}
 

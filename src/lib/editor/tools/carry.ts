@@ -138,7 +138,9 @@ export const carryTool: ToolDef = {
 			chain.keys,
 			r.pieces,
 			(i) => ({ from: 'carry', styleLine, fuse: s.input.fuse, residualAs: s.input.residualAs, seamPairIds, part: i === 0 ? `joined ${s.input.fuse} the style line` : `other side, part ${i}` }),
-			`${chain.keys.length} panels carried into one seam — ${r.report.summary}`
+			`${chain.keys.length} panels carried into one seam — ${r.report.summary}`,
+			r.seamPairs,
+			(i, _a, b) => `style seam ${i + 1} (${b.name})`
 		);
 		s.toolMessage = err;
 		if (!err) s.setTool('select');

@@ -5,7 +5,8 @@ import { pieceMetrics } from '$lib/pattern/metrics';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { EditorState } from '../editor-state.svelte';
 import { fmtLength, fmtLengthSigned } from '../units';
-import { chosenPair, firstUsablePair, opPieces, pairOverlay, pickEdgeEnd } from './seams';
+import type { SeamEdit } from '../doc';
+import { chosenPair, firstUsablePair, opPieces, pairOverlay, pathEnd, pathStart, pickEdgeEnd } from './seams';
 import { emptyPreview, type OverlayItem, type ToolDef, type ToolPreview } from './types';
 
 function trueRun(s: EditorState) {
@@ -30,6 +31,25 @@ export function reshapeMoves(before: Piece, after: Piece): { from: Vec; to: Vec 
 		if (vecDistance(a[i], b[i]) > 1e-9 && !moves.some((m) => vecDistance(m.from, a[i]) < 1e-6)) moves.push({ from: a[i], to: b[i] });
 	}
 	return moves;
+}
+
+/**
+ * The stored seam pair's edge with its moved end at the new point (the other end kept as stored), so the
+ * server measures the trued edge; null for a seam picked by clicking (nothing stored to move).
+ */
+function storedEndMoved(s: EditorState, run: NonNullable<ReturnType<typeof trueRun>>): SeamEdit | undefined {
+	const sp = s.seamPairs.find((x) => x.id === s.input.seamPairId);
+	if (!sp || !run.r.ok || !run.adjust) return undefined;
+	const side = run.adjust.side;
+	const before = side === 'a' ? run.c.pair.a.edge : run.c.pair.b.edge;
+	const after = side === 'a' ? run.r.seamPairs[0].a.edge : run.r.seamPairs[0].b.edge;
+	const end = run.adjust.end === 'start' ? pathStart : pathEnd;
+	const was = end(before);
+	const now = end(after);
+	const stored = side === 'a' ? sp.aEdge : sp.bEdge;
+	// the stored end nearest the moved one follows it
+	const movesFrom = vecDistance(stored.from, was) <= vecDistance(stored.to, was);
+	return { seamPairId: sp.id, side, from: movesFrom ? now : stored.from, to: movesFrom ? stored.to : now };
 }
 
 /** True seam: both edges measured with darts folded out, the difference against the allowed ease, one end moved to match. */
@@ -80,7 +100,7 @@ export const trueSeamTool: ToolDef = {
 				areaMm2
 			})
 		];
-		const err = s.apply(key, { op: 'reshape', params: { moves } }, `${s.piece(key)?.name}: seam "${run.c.label}" trued`, declared);
+		const err = s.apply(key, { op: 'reshape', params: { moves } }, `${s.piece(key)?.name}: seam "${run.c.label}" trued`, declared, storedEndMoved(s, run));
 		s.toolMessage = err;
 		if (!err) s.setTool('select');
 	},
@@ -116,6 +136,7 @@ export const trueSeamTool: ToolDef = {
 				{ label: 'Edge b (darts folded out)', value: mm(b.bMm) },
 				{ label: 'Difference a − b', value: fmtLengthSigned(b.differenceMm, s.unit), tone: b.withinTolerance ? 'ok' : 'bad' },
 				{ label: 'Allowed ease', value: mm(b.allowedEaseMm) },
+				{ label: 'Reads', value: b.withinTolerance ? 'true' : `${mm(b.deviationMm)} off`, tone: b.withinTolerance ? ('ok' as const) : ('bad' as const) },
 				...(run.adjust
 					? [
 							{ label: 'After: difference a − b', value: fmtLengthSigned(a.differenceMm, s.unit), tone: a.withinTolerance ? ('ok' as const) : ('bad' as const) },
