@@ -396,24 +396,15 @@ export class EditorState {
 		const r = editorSeparate(p.geometry, { styleLineId, pieceNames: names });
 		if (!r.ok) return r.error.message;
 		const stamp = Date.now().toString(36);
-		const made: PieceEdit[] = r.pieces.map((g, i) => ({
-			key: `new-${stamp}-${i}`,
-			name: g.name,
-			cut: g.cut,
-			fabric: g.fabric,
-			baseVersionId: null,
-			baseNumber: 0,
-			base: null,
-			geometry: g,
-			steps: [],
-			offset: vecAdd(p.offset, { x: 0, y: i * 25 }),
-			origin: {
-				op: 'separate_result',
-				params: { fromPieceId: p.key.startsWith('new-') ? null : p.key, fromVersionId: p.baseVersionId, styleLineId, part: i, recipe: this.recipeOf(p) }
-			},
-			retired: false,
-			readOnly: false
-		}));
+		const made: PieceEdit[] = r.pieces.map((g, i) =>
+			pieceEditNew(`new-${stamp}-${i}`, g, vecAdd(p.offset, { x: 0, y: i * 25 }), {
+				fromPieceId: p.key.startsWith('new-') ? null : p.key,
+				fromVersionId: p.baseVersionId,
+				styleLineId,
+				part: i,
+				recipe: this.recipeOf(p)
+			})
+		);
 		const pieces = this.doc.pieces.flatMap((q) => (q.key === key ? [{ ...q, retired: true }, ...made] : [q]));
 		const line = p.geometry.internalLines.find((l) => l.id === styleLineId);
 		const seams = pendingSeams(r.seamPairs, made, () => `${p.name} separated at ${line?.label || 'the style line'}`);
@@ -439,21 +430,8 @@ export class EditorState {
 		if (src.some((p) => p!.steps.length > 0)) return 'Save the changes to these pieces first: a merged piece starts from saved versions.';
 		const first = src[0]!;
 		const stamp = Date.now().toString(36);
-		const list: PieceEdit[] = made.map((g, i) => ({
-			key: `new-${stamp}-${i}`,
-			name: g.name,
-			cut: g.cut,
-			fabric: g.fabric,
-			baseVersionId: null,
-			baseNumber: 0,
-			base: null,
-			geometry: g,
-			steps: [],
-			offset: first.offset,
-			origin: { op: 'separate_result', params: { ...originParams(i), sources: src.map((p) => ({ pieceId: p!.key.startsWith('new-') ? null : p!.key, versionId: p!.baseVersionId })) } },
-			retired: false,
-			readOnly: false
-		}));
+		const sourceRefs = src.map((p) => ({ pieceId: p!.key.startsWith('new-') ? null : p!.key, versionId: p!.baseVersionId }));
+		const list: PieceEdit[] = made.map((g, i) => pieceEditNew(`new-${stamp}-${i}`, g, first.offset, { ...originParams(i), sources: sourceRefs }));
 		const gone = new Set(sources);
 		const pieces = [...this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, retired: true } : q)), ...list];
 		this.push({ pieces, pendingSeams: [...(this.doc.pendingSeams ?? []), ...pendingSeams(seamPairs, list, seamLabel)] }, label);
@@ -728,4 +706,23 @@ export class EditorState {
 		}
 		return box;
 	}
+}
+
+/** A piece made by an operation in the editor, not saved yet: its history starts with separate_result. */
+function pieceEditNew(key: string, g: Piece, offset: Vec, originParams: Record<string, unknown>): PieceEdit {
+	return {
+		key,
+		name: g.name,
+		cut: g.cut,
+		fabric: g.fabric,
+		baseVersionId: null,
+		baseNumber: 0,
+		base: null,
+		geometry: g,
+		steps: [],
+		offset,
+		origin: { op: 'separate_result', params: originParams },
+		retired: false,
+		readOnly: false
+	};
 }
