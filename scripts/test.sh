@@ -17,7 +17,7 @@ stage() {
 }
 
 rm -f "$RUN_DIR"/vitest-*.json
-stage "svelte-check" npx svelte-kit sync
+stage "sync" npx svelte-kit sync
 stage "svelte-check" npx svelte-check --tsconfig ./tsconfig.json --fail-on-warnings --output machine-verbose --threshold error
 stage "build" npx vite build --logLevel warn
 stage "unit and integration tests" npx vitest run --project unit --project integration \

@@ -1,6 +1,4 @@
 import {
-	outlineArea,
-	outlinePerimeter,
 	outlineSignedArea,
 	pointRotateAbout,
 	segmentLength,
@@ -160,39 +158,28 @@ export function pieceMetrics(piece: Piece): PieceMetrics {
 	let legLength = 0;
 	const n = piece.outline.segments.length;
 	for (const s of spans) for (let j = 0; j < s.count; j++) legLength += segmentLengthsMm[(s.first + j) % n];
-	const perimeterMm = outlinePerimeter(piece.outline);
+	const perimeterMm = segmentLengthsMm.reduce((t, l) => t + l, 0);
 	const signedAreaMm2 = outlineSignedArea(piece.outline);
+	const wedge = (id: string, apexId: string, leg1End: Vec, leg2End: Vec): WedgeMetrics | null => {
+		const apex = apexById(piece, apexId);
+		if (!apex) return null;
+		const g = wedgeGeometry(apex.point, leg1End, leg2End);
+		return { id, apexId, angleRad: g.angleRad, intakeMm: g.intakeMm, leg1LengthMm: g.leg1LengthMm, leg2LengthMm: g.leg2LengthMm };
+	};
 	const darts: DartMetrics[] = [];
 	for (const d of piece.darts) {
-		const apex = apexById(piece, d.apexId);
-		if (!apex) continue;
-		const g = wedgeGeometry(apex.point, d.leg1End, d.leg2End);
+		const w = wedge(d.id, d.apexId, d.leg1End, d.leg2End);
+		if (!w) continue;
 		darts.push({
-			id: d.id,
-			apexId: d.apexId,
-			angleRad: g.angleRad,
-			intakeMm: g.intakeMm,
-			leg1LengthMm: g.leg1LengthMm,
-			leg2LengthMm: g.leg2LengthMm,
-			sewnAngleRad: d.pullBack ? d.pullBack.sewnAngleRad : g.angleRad,
-			sewnLegLengthMm: d.pullBack ? d.pullBack.sewnLegLengthMm : (g.leg1LengthMm + g.leg2LengthMm) / 2
+			...w,
+			sewnAngleRad: d.pullBack ? d.pullBack.sewnAngleRad : w.angleRad,
+			sewnLegLengthMm: d.pullBack ? d.pullBack.sewnLegLengthMm : (w.leg1LengthMm + w.leg2LengthMm) / 2
 		});
 	}
 	const pleats: PleatMetrics[] = [];
 	for (const p of piece.pleats) {
-		const apex = apexById(piece, p.apexId);
-		if (!apex) continue;
-		const g = wedgeGeometry(apex.point, p.leg1End, p.leg2End);
-		pleats.push({
-			id: p.id,
-			apexId: p.apexId,
-			kind: p.kind,
-			angleRad: g.angleRad,
-			intakeMm: g.intakeMm,
-			depthMm: g.intakeMm / 2,
-			leg1LengthMm: g.leg1LengthMm,
-			leg2LengthMm: g.leg2LengthMm
-		});
+		const w = wedge(p.id, p.apexId, p.leg1End, p.leg2End);
+		if (w) pleats.push({ ...w, kind: p.kind, depthMm: w.intakeMm / 2 });
 	}
 	const apexTotals: ApexTotal[] = piece.apexes.map((a) => {
 		const ds = darts.filter((d) => d.apexId === a.id);
@@ -206,7 +193,7 @@ export function pieceMetrics(piece: Piece): PieceMetrics {
 		};
 	});
 	return {
-		areaMm2: outlineArea(piece.outline),
+		areaMm2: Math.abs(signedAreaMm2),
 		signedAreaMm2,
 		perimeterMm,
 		segmentLengthsMm,

@@ -2,7 +2,7 @@ import { join } from '$lib/pattern/panels';
 import { pieceMetrics } from '$lib/pattern/metrics';
 import type { EditorState } from '../editor-state.svelte';
 import { fmtArea, fmtDeg } from '../units';
-import { chosenPair, firstUsablePair, opPieces, pairOverlay, pickEdgeEnd } from './seams';
+import { chosenPair, opPieces, pairOverlay, seamPicking } from './seams';
 import { emptyPreview, type OverlayItem, type ToolDef, type ToolPreview } from './types';
 
 function joinRun(s: EditorState) {
@@ -31,13 +31,7 @@ export const joinTool: ToolDef = {
 		if (n === 3) return 'Click the other end of the second edge.';
 		return 'Enter or Apply joins the pieces.';
 	},
-	start(s) {
-		s.input.seamPairId = firstUsablePair(s);
-	},
-	down(s, p) {
-		pickEdgeEnd(s, p);
-		return false;
-	},
+	...seamPicking,
 	commit(s) {
 		const run = joinRun(s);
 		if (!run) return;

@@ -4,7 +4,7 @@ import type { SeamPair } from '$lib/pattern/panels';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { EditorState } from '../editor-state.svelte';
 import type { SeamPairInfo } from '../api';
-import type { PointerInfo } from './types';
+import type { PointerInfo, ToolDef } from './types';
 
 /** Seam pairs for join, carry and true seam: stored pairs of the style, or two edges picked by clicking. */
 
@@ -137,3 +137,14 @@ function cubicAt(p0: Vec, p1: Vec, p2: Vec, p3: Vec, t: number): Vec {
 }
 
 export { first as pathStart, last as pathEnd };
+
+/** What the seam tools (join, true seam) share: start on the first usable seam pair, click edge ends. */
+export const seamPicking: Pick<ToolDef, 'start' | 'down'> = {
+	start(s) {
+		s.input.seamPairId = firstUsablePair(s);
+	},
+	down(s, p) {
+		pickEdgeEnd(s, p);
+		return false;
+	}
+};

@@ -6,7 +6,7 @@ import type { Piece } from '$lib/pattern/piece-schema';
 import type { EditorState } from '../editor-state.svelte';
 import { fmtLength, fmtLengthSigned } from '../units';
 import type { SeamEdit } from '../doc';
-import { chosenPair, firstUsablePair, opPieces, pairOverlay, pathEnd, pathStart, pickEdgeEnd } from './seams';
+import { chosenPair, opPieces, pairOverlay, pathEnd, pathStart, seamPicking } from './seams';
 import { emptyPreview, type OverlayItem, type ToolDef, type ToolPreview } from './types';
 
 function trueRun(s: EditorState) {
@@ -66,13 +66,7 @@ export const trueSeamTool: ToolDef = {
 		if (n < 4) return 'Click the two ends of the edge sewn to it.';
 		return 'Choose the end to move, then Enter or Apply.';
 	},
-	start(s) {
-		s.input.seamPairId = firstUsablePair(s);
-	},
-	down(s, p) {
-		pickEdgeEnd(s, p);
-		return false;
-	},
+	...seamPicking,
 	commit(s) {
 		const run = trueRun(s);
 		if (!run || !run.r.ok || !run.adjust) return;

@@ -49,9 +49,11 @@ function conflict(head: { id: string | null; number: number }): SaveOutcome {
 export async function seamWarnings(db: DbOrTx, styleId: string, pieceId: string, piece: Piece): Promise<SeamPairMeasure[]> {
 	const pairs = (await seamPairsOfStyle(db, styleId)).filter((p) => p.aPieceId === pieceId || p.bPieceId === pieceId);
 	if (pairs.length === 0) return [];
+	// only the heads of the pieces these seams join are read (each once), not the whole style's
+	const wanted = new Set(pairs.flatMap((p) => [p.aPieceId, p.bPieceId]));
 	const heads = new Map<string, Piece>();
 	for (const other of await piecesOfStyle(db, styleId)) {
-		if (other.id === pieceId || !other.headVersionId) continue;
+		if (other.id === pieceId || !other.headVersionId || !wanted.has(other.id)) continue;
 		const g = await versionsGeometry(db, other.id, other.headVersionId);
 		if (g) heads.set(other.id, pieceSchema.parse(g));
 	}
