@@ -226,6 +226,24 @@ describe('self-intersection', () => {
 		expect(vecDistance(ab[0].point, { x: 10, y: 0 })).toBeGreaterThan(1);
 	});
 
+	it('path against path gives the same crossings whichever chain is given first (the shorter one is indexed)', () => {
+		fc.assert(
+			fc.property(fc.array(arbPoint(100), { minLength: 2, maxLength: 40 }), fc.array(arbPoint(100), { minLength: 2, maxLength: 8 }), (pa, pb) => {
+				const a = pathFromPolyline(pa);
+				const b = pathFromPolyline(pb);
+				const ab = pathIntersections(a, b);
+				const ba = pathIntersections(b, a);
+				expect(ab.length).toBe(ba.length);
+				for (const h of ab) {
+					expect(vecDistance(segmentPointAt(a.segments[h.segmentIndex], h.t), h.point)).toBeLessThan(1e-6);
+					expect(vecDistance(segmentPointAt(b.segments[h.otherSegmentIndex], h.otherT), h.point)).toBeLessThan(1e-6);
+					expect(ba.some((g) => vecDistance(g.point, h.point) < 1e-6)).toBe(true);
+				}
+			}),
+			{ numRuns: 200 }
+		);
+	});
+
 	it('path against path finds the crossing of two polylines', () => {
 		const hits = pathIntersections(pathFromPolyline([{ x: 0, y: 0 }, { x: 10, y: 0 }, { x: 10, y: 10 }]), pathFromPolyline([{ x: 5, y: 5 }, { x: 15, y: 5 }]));
 		expect(hits.map((h) => [h.segmentIndex, h.otherSegmentIndex, h.point.x, h.point.y])).toEqual([[1, 0, 10, 5]]);

@@ -437,15 +437,19 @@ function chainBoxes(chain: SegmentChain, margin: number): IndexedBox[] {
 
 /** All crossings of two chains (outline/path against outline/path), bounding-box rejection first. */
 export function pathIntersections(a: SegmentChain, b: SegmentChain, tolerance = INTERSECTION_TOLERANCE_MM): ChainHit[] {
-	const ba = chainBoxes(a, tolerance);
-	const bb = chainBoxes(b, tolerance).sort((p, q) => p.minX - q.minX);
+	// the shorter chain's boxes are sorted by left edge; each box of the longer chain scans them up to its right edge
+	const aShorter = a.segments.length <= b.segments.length;
+	const sorted = chainBoxes(aShorter ? a : b, tolerance).sort((p, q) => p.minX - q.minX);
+	const scanned = chainBoxes(aShorter ? b : a, tolerance);
 	const out: ChainHit[] = [];
-	for (const x of ba) {
-		for (const y of bb) {
-			if (y.minX > x.maxX) break;
-			if (y.maxX < x.minX || y.minY > x.maxY || y.maxY < x.minY) continue;
-			for (const h of segmentIntersections(a.segments[x.i], b.segments[y.i], tolerance)) {
-				out.push({ segmentIndex: x.i, t: h.ta, otherSegmentIndex: y.i, otherT: h.tb, point: h.point });
+	for (const y of scanned) {
+		for (const x of sorted) {
+			if (x.minX > y.maxX) break;
+			if (x.maxX < y.minX || x.minY > y.maxY || x.maxY < y.minY) continue;
+			const ia = aShorter ? x.i : y.i;
+			const ib = aShorter ? y.i : x.i;
+			for (const h of segmentIntersections(a.segments[ia], b.segments[ib], tolerance)) {
+				out.push({ segmentIndex: ia, t: h.ta, otherSegmentIndex: ib, otherT: h.tb, point: h.point });
 			}
 		}
 	}

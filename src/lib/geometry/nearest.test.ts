@@ -1,3 +1,4 @@
+import Flatten from '@flatten-js/core';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { outlineNearestPoint, segmentNearestPoint } from './nearest';
@@ -36,6 +37,22 @@ describe('nearest point', () => {
 				expect(r.distance).toBeLessThanOrEqual(dense + 1e-6);
 			}),
 			{ numRuns: 100 }
+		);
+	});
+
+	// Reference: @flatten-js/core's point-to-segment distance, smallest over the edges.
+	it('on straight outlines matches @flatten-js/core distance, and the point lies on the reported segment', () => {
+		fc.assert(
+			fc.property(fc.uniqueArray(arbPoint(100), { minLength: 3, maxLength: 60, selector: (p) => `${p.x},${p.y}` }), arbPoint(150), (pts, q) => {
+				const o = outlineFromPolyline(pts);
+				const r = outlineNearestPoint(o, q);
+				const fq = new Flatten.Point(q.x, q.y);
+				const d = Math.min(...pts.map((p, i) => new Flatten.Segment(new Flatten.Point(p.x, p.y), new Flatten.Point(pts[(i + 1) % pts.length].x, pts[(i + 1) % pts.length].y)).distanceTo(fq)[0]));
+				expect(Math.abs(r.distance - d)).toBeLessThan(1e-9);
+				expect(vecDistance(r.point, segmentPointAt(o.segments[r.segmentIndex], r.t))).toBeLessThan(1e-9);
+				expect(Math.abs(vecDistance(r.point, q) - r.distance)).toBeLessThan(1e-9);
+			}),
+			{ numRuns: 200 }
 		);
 	});
 });

@@ -76,23 +76,45 @@ export function segmentNearestPoint(s: Segment, p: Vec): { t: number; point: Vec
 /** Nearest point on an outline or path (segment index, t, point, distance). Segments whose box is farther than the best so far are skipped. */
 export function pathNearestPoint(chain: SegmentChain, p: Vec): NearestPoint {
 	let best: NearestPoint = { segmentIndex: -1, t: 0, point: { x: NaN, y: NaN }, distance: Infinity };
+	// straight segments are measured in place (squared distance, no allocation); the winner is built at the end
+	let bestD2 = Infinity;
+	let bestLine = -1;
 	const segs = chain.segments;
 	for (let i = 0; i < segs.length; i++) {
 		const s = segs[i];
-		// lower bound: distance to the control-point box
-		let minX: number, maxX: number, minY: number, maxY: number;
 		if (s.kind === 'line') {
-			minX = Math.min(s.p0.x, s.p1.x); maxX = Math.max(s.p0.x, s.p1.x);
-			minY = Math.min(s.p0.y, s.p1.y); maxY = Math.max(s.p0.y, s.p1.y);
-		} else {
-			minX = Math.min(s.p0.x, s.p1.x, s.p2.x, s.p3.x); maxX = Math.max(s.p0.x, s.p1.x, s.p2.x, s.p3.x);
-			minY = Math.min(s.p0.y, s.p1.y, s.p2.y, s.p3.y); maxY = Math.max(s.p0.y, s.p1.y, s.p2.y, s.p3.y);
+			const x0 = s.p0.x, y0 = s.p0.y;
+			const dx = s.p1.x - x0, dy = s.p1.y - y0;
+			// lower bound: distance to the segment's box
+			const bx = p.x < Math.min(x0, x0 + dx) ? Math.min(x0, x0 + dx) - p.x : p.x > Math.max(x0, x0 + dx) ? p.x - Math.max(x0, x0 + dx) : 0;
+			const by = p.y < Math.min(y0, y0 + dy) ? Math.min(y0, y0 + dy) - p.y : p.y > Math.max(y0, y0 + dy) ? p.y - Math.max(y0, y0 + dy) : 0;
+			if (bx * bx + by * by > bestD2) continue;
+			const l2 = dx * dx + dy * dy;
+			let t = l2 === 0 ? 0 : ((p.x - x0) * dx + (p.y - y0) * dy) / l2;
+			t = t < 0 ? 0 : t > 1 ? 1 : t;
+			const ex = x0 + t * dx - p.x, ey = y0 + t * dy - p.y;
+			const d2 = ex * ex + ey * ey;
+			if (d2 < bestD2) {
+				bestD2 = d2;
+				bestLine = i;
+			}
+			continue;
 		}
+		const minX = Math.min(s.p0.x, s.p1.x, s.p2.x, s.p3.x), maxX = Math.max(s.p0.x, s.p1.x, s.p2.x, s.p3.x);
+		const minY = Math.min(s.p0.y, s.p1.y, s.p2.y, s.p3.y), maxY = Math.max(s.p0.y, s.p1.y, s.p2.y, s.p3.y);
 		const bx = p.x < minX ? minX - p.x : p.x > maxX ? p.x - maxX : 0;
 		const by = p.y < minY ? minY - p.y : p.y > maxY ? p.y - maxY : 0;
-		if (bx * bx + by * by > best.distance * best.distance) continue;
+		if (bx * bx + by * by > bestD2) continue;
 		const r = segmentNearestPoint(s, p);
-		if (r.distance < best.distance) best = { segmentIndex: i, t: r.t, point: r.point, distance: r.distance };
+		if (r.distance * r.distance < bestD2) {
+			best = { segmentIndex: i, t: r.t, point: r.point, distance: r.distance };
+			bestD2 = r.distance * r.distance;
+			bestLine = -1;
+		}
+	}
+	if (bestLine >= 0) {
+		const r = segmentNearestPoint(segs[bestLine], p);
+		best = { segmentIndex: bestLine, t: r.t, point: r.point, distance: r.distance };
 	}
 	return best;
 }

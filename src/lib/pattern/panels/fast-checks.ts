@@ -1,6 +1,8 @@
-import { outlineClosureProblems, outlineShortSegmentProblems, type Outline, type Vec } from '../kernel';
+import { CLOSURE_TOLERANCE_MM, MIN_SEGMENT_LENGTH_MM, outlineClosureProblems, outlineShortSegmentProblems, type Outline, type Vec } from '../kernel';
 import { resultProblems } from '../operation-result';
 import { pieceStructureProblems } from '../piece';
+import { chainSelfIntersection } from './chain-self-intersection';
+import { segmentsTouch } from './segment-touch';
 import type { Piece } from '../piece-schema';
 
 /**
@@ -8,21 +10,15 @@ import type { Piece } from '../piece-schema';
  * go through the kernel's outlineProblems (via ../operation-result resultProblems). Large all-straight
  * outlines (digitised or flattened pieces, hundreds to tens of thousands of vertices) are checked the
  * same way — closure, segment length, self-intersection, piece structure — but the self-intersection
- * search uses a uniform grid instead of the kernel's sweep, so it stays linear in the vertex count.
+ * search follows monotone chains (or a uniform grid for outlines with many chains) instead of the kernel's
+ * sweep, so it stays linear in the vertex count.
  * Touching at an apex is allowed, as in resultProblems.
  */
 
 const GRID_FROM_SEGMENTS = 400;
 
 export function panelPieceProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
-	const segs = piece.outline.segments;
-	if (options.selfIntersection === false) {
-		return [
-			...outlineClosureProblems(piece.outline).map((p) => p.message),
-			...outlineShortSegmentProblems(piece.outline).map((p) => p.message),
-			...pieceStructureProblems(piece)
-		];
-	}
+	if (options.selfIntersection === false) return [...closureAndLengthProblems(piece.outline), ...pieceStructureProblems(piece)];
 	const cached = fullCheckCache.get(piece);
 	if (cached) return cached;
 	const problems = fullProblems(piece);
@@ -38,15 +34,48 @@ const fullCheckCache = new WeakMap<Piece, string[]>();
 
 function fullProblems(piece: Piece): string[] {
 	const segs = piece.outline.segments;
-	if (segs.length < GRID_FROM_SEGMENTS || segs.some((s) => s.kind !== 'line')) return resultProblems(piece);
+	if (segs.length < GRID_FROM_SEGMENTS || !allStraight(piece.outline)) return resultProblems(piece);
 	const apexes = piece.apexes.map((a) => a.point);
-	const crossing = gridSelfIntersection(piece.outline).filter((p) => !apexes.some((a) => Math.hypot(a.x - p.x, a.y - p.y) < 1e-3));
+	const crossing = straightSelfIntersection(piece.outline).filter((p) => !apexes.some((a) => Math.hypot(a.x - p.x, a.y - p.y) < 1e-3));
 	return [
-		...outlineClosureProblems(piece.outline).map((p) => p.message),
-		...outlineShortSegmentProblems(piece.outline).map((p) => p.message),
+		...closureAndLengthProblems(piece.outline),
 		...crossing.slice(0, 1).map((p) => `The outline crosses itself at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}) mm.`),
 		...structureProblems(piece)
 	];
+}
+
+function allStraight(outline: Outline): boolean {
+	for (const s of outline.segments) if (s.kind !== 'line') return false;
+	return true;
+}
+
+/**
+ * The kernel's closure and segment-length problems. A straight outline is first measured in one lean
+ * pass (squared gaps and lengths); only when that finds something do the kernel checks run, for their
+ * messages.
+ */
+function closureAndLengthProblems(outline: Outline): string[] {
+	if (allStraight(outline) && straightClean(outline)) return [];
+	return [...outlineClosureProblems(outline).map((p) => p.message), ...outlineShortSegmentProblems(outline).map((p) => p.message)];
+}
+
+function straightClean(outline: Outline): boolean {
+	const segs = outline.segments as readonly { p0: Vec; p1: Vec }[];
+	const n = segs.length;
+	const gap2 = CLOSURE_TOLERANCE_MM * CLOSURE_TOLERANCE_MM;
+	const min2 = MIN_SEGMENT_LENGTH_MM * MIN_SEGMENT_LENGTH_MM;
+	for (let i = 0; i < n; i++) {
+		const s = segs[i];
+		const next = segs[i + 1 === n ? 0 : i + 1].p0;
+		const gx = s.p1.x - next.x;
+		const gy = s.p1.y - next.y;
+		// written so that NaN fails
+		if (!(gx * gx + gy * gy <= gap2)) return false;
+		const lx = s.p1.x - s.p0.x;
+		const ly = s.p1.y - s.p0.y;
+		if (!(lx * lx + ly * ly >= min2)) return false;
+	}
+	return true;
 }
 
 /** pieceStructureProblems, skipped when there is nothing it could find beyond closure (checked apart). */
@@ -57,6 +86,29 @@ function structureProblems(piece: Piece): string[] {
 	for (const a of piece.apexes) {
 		if (ids.has(a.id)) out.push(`apex id "${a.id}" is used twice`);
 		ids.add(a.id);
+	}
+	return out;
+}
+
+/** Points where a closed all-straight outline crosses or touches itself: by monotone chains, or on a grid when the outline has too many chains. */
+export function straightSelfIntersection(outline: Outline): Vec[] {
+	return [...neighbourFoldBacks(outline), ...(chainSelfIntersection(outline) ?? gridSelfIntersection(outline))];
+}
+
+/** Vertices where a segment turns straight back along the one before it (a zero-width spike): the two overlap. */
+export function neighbourFoldBacks(outline: Outline): Vec[] {
+	const segs = outline.segments as readonly { p0: Vec; p1: Vec }[];
+	const n = segs.length;
+	const out: Vec[] = [];
+	if (n < 3) return out;
+	for (let i = 0; i < n; i++) {
+		const a = segs[i];
+		const b = segs[i + 1 === n ? 0 : i + 1];
+		const rx = a.p1.x - a.p0.x;
+		const ry = a.p1.y - a.p0.y;
+		const sx = b.p1.x - b.p0.x;
+		const sy = b.p1.y - b.p0.y;
+		if (rx * sx + ry * sy < 0 && Math.abs(rx * sy - ry * sx) <= 1e-12 * Math.hypot(rx, ry) * Math.hypot(sx, sy)) out.push(a.p1);
 	}
 	return out;
 }
@@ -173,33 +225,4 @@ function radixOrder(keys: Float64Array, m: number): Uint32Array {
 		[idx, tmp] = [tmp, idx];
 	}
 	return idx;
-}
-
-function segmentsTouch(a: Vec, b: Vec, c: Vec, d: Vec): Vec | null {
-	// bounding-box rejection first: most pairs sharing a grid cell are merely close
-	if (Math.max(a.x, b.x) < Math.min(c.x, d.x) - 1e-9 || Math.max(c.x, d.x) < Math.min(a.x, b.x) - 1e-9) return null;
-	if (Math.max(a.y, b.y) < Math.min(c.y, d.y) - 1e-9 || Math.max(c.y, d.y) < Math.min(a.y, b.y) - 1e-9) return null;
-	const rx = b.x - a.x;
-	const ry = b.y - a.y;
-	const sx = d.x - c.x;
-	const sy = d.y - c.y;
-	const den = rx * sy - ry * sx;
-	const qx = c.x - a.x;
-	const qy = c.y - a.y;
-	const rl = Math.hypot(rx, ry);
-	if (Math.abs(den) <= 1e-12 * rl * Math.hypot(sx, sy)) {
-		// parallel: touching only if collinear and overlapping
-		if (Math.abs(qx * ry - qy * rx) > 1e-9 * rl) return null;
-		const rr = rx * rx + ry * ry;
-		const t0 = (qx * rx + qy * ry) / rr;
-		const t1 = t0 + (sx * rx + sy * ry) / rr;
-		const lo = Math.max(0, Math.min(t0, t1));
-		const hi = Math.min(1, Math.max(t0, t1));
-		return lo <= hi ? { x: a.x + lo * rx, y: a.y + lo * ry } : null;
-	}
-	const t = (qx * sy - qy * sx) / den;
-	const u = (qx * ry - qy * rx) / den;
-	const e = 1e-12;
-	if (t < -e || t > 1 + e || u < -e || u > 1 + e) return null;
-	return { x: a.x + t * rx, y: a.y + t * ry };
 }
