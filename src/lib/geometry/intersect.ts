@@ -437,17 +437,26 @@ function chainBoxes(chain: SegmentChain, margin: number): IndexedBox[] {
 
 /** All crossings of two chains (outline/path against outline/path), bounding-box rejection first. */
 export function pathIntersections(a: SegmentChain, b: SegmentChain, tolerance = INTERSECTION_TOLERANCE_MM): ChainHit[] {
-	// the shorter chain's boxes are sorted by left edge; each box of the longer chain scans them up to its right edge
+	// the shorter chain's boxes are sorted by left edge; each segment of the longer chain scans them up to its right edge
 	const aShorter = a.segments.length <= b.segments.length;
 	const sorted = chainBoxes(aShorter ? a : b, tolerance).sort((p, q) => p.minX - q.minX);
-	const scanned = chainBoxes(aShorter ? b : a, tolerance);
+	const scanned = (aShorter ? b : a).segments;
 	const out: ChainHit[] = [];
-	for (const y of scanned) {
+	for (let k = 0; k < scanned.length; k++) {
+		const s = scanned[k];
+		let minX: number, maxX: number, minY: number, maxY: number;
+		if (s.kind === 'line') {
+			minX = Math.min(s.p0.x, s.p1.x); maxX = Math.max(s.p0.x, s.p1.x);
+			minY = Math.min(s.p0.y, s.p1.y); maxY = Math.max(s.p0.y, s.p1.y);
+		} else {
+			const c = ctrlBox(s);
+			minX = c.minX; maxX = c.maxX; minY = c.minY; maxY = c.maxY;
+		}
 		for (const x of sorted) {
-			if (x.minX > y.maxX) break;
-			if (x.maxX < y.minX || x.minY > y.maxY || x.maxY < y.minY) continue;
-			const ia = aShorter ? x.i : y.i;
-			const ib = aShorter ? y.i : x.i;
+			if (x.minX > maxX + tolerance) break;
+			if (x.maxX < minX - tolerance || x.minY > maxY + tolerance || x.maxY < minY - tolerance) continue;
+			const ia = aShorter ? x.i : k;
+			const ib = aShorter ? k : x.i;
 			for (const h of segmentIntersections(a.segments[ia], b.segments[ib], tolerance)) {
 				out.push({ segmentIndex: ia, t: h.ta, otherSegmentIndex: ib, otherT: h.tb, point: h.point });
 			}

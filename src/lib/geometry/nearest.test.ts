@@ -40,10 +40,12 @@ describe('nearest point', () => {
 		);
 	});
 
-	// Reference: @flatten-js/core's point-to-segment distance, smallest over the edges.
+	// Reference: @flatten-js/core's point-to-segment distance, smallest over the edges (points on a 0.1 mm
+	// grid: flatten-js compares with its own 1e-6 tolerance, so sub-micron shapes are not a fair reference).
 	it('on straight outlines matches @flatten-js/core distance, and the point lies on the reported segment', () => {
+		const gridPoint = (r: number) => fc.record({ x: fc.integer({ min: -10 * r, max: 10 * r }), y: fc.integer({ min: -10 * r, max: 10 * r }) }).map((p) => ({ x: p.x / 10, y: p.y / 10 }));
 		fc.assert(
-			fc.property(fc.uniqueArray(arbPoint(100), { minLength: 3, maxLength: 60, selector: (p) => `${p.x},${p.y}` }), arbPoint(150), (pts, q) => {
+			fc.property(fc.uniqueArray(gridPoint(100), { minLength: 3, maxLength: 60, selector: (p) => `${p.x},${p.y}` }), gridPoint(150), (pts, q) => {
 				const o = outlineFromPolyline(pts);
 				const r = outlineNearestPoint(o, q);
 				const fq = new Flatten.Point(q.x, q.y);

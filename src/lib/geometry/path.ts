@@ -75,6 +75,10 @@ function join(chains: readonly SegmentChain[], closed: boolean, options: ChainJo
 				continue;
 			}
 			const end = segmentEnd(out[out.length - 1]);
+			if (end.x === s.p0.x && end.y === s.p0.y) {
+				out.push(s);
+				continue;
+			}
 			const d = Math.hypot(end.x - s.p0.x, end.y - s.p0.y);
 			if (d === 0) out.push(s);
 			else if (d <= tol) out.push(segmentWithStart(s, end));

@@ -11,6 +11,14 @@ describe('piece model', () => {
 		expect(pieceSchema.safeParse(p).success).toBe(true);
 		expect(pieceStructureProblems(p)).toEqual([]);
 	});
+	it('parsed pieces are plain arrays, not frozen ones (V8 reads frozen arrays on a slow path in every kernel loop)', () => {
+		const piece = pieceSchema.parse(frontBodiceBlock());
+		expect(Object.isFrozen(piece.outline.segments)).toBe(false);
+		for (const list of [piece.apexes, piece.darts, piece.pleats, piece.notches, piece.internalLines, piece.drillHoles, piece.labels]) {
+			expect(Array.isArray(list) && !Object.isFrozen(list)).toBe(true);
+		}
+	});
+
 	it('schema refuses non-finite numbers and wrong schemaVersion', () => {
 		const p = frontBodiceBlock();
 		const bad = { ...p, apexes: [{ ...p.apexes[0], point: { x: Infinity, y: 0 } }] };

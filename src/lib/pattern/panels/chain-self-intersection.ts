@@ -1,5 +1,5 @@
-import type { Outline, Vec } from '../kernel';
-import { segmentsTouch } from './segment-touch';
+import type { Vec } from '../kernel';
+import { segmentsTouchXY } from './segment-touch';
 
 /**
  * Self-crossing search for closed all-straight outlines, by monotone chains.
@@ -25,9 +25,7 @@ interface Chain {
 	readonly crossHi: number;
 }
 
-type Seg = { readonly p0: Vec; readonly p1: Vec };
-
-/** Coordinates of every segment end along one axis and across it. */
+/** Coordinates of every segment end along one axis (a) and across it (c). */
 interface Coords {
 	readonly a0: Float64Array;
 	readonly a1: Float64Array;
@@ -35,27 +33,20 @@ interface Coords {
 	readonly c1: Float64Array;
 }
 
-function coordsOf(segs: readonly Seg[], axis: 'x' | 'y'): Coords {
-	const n = segs.length;
-	const a0 = new Float64Array(n);
-	const a1 = new Float64Array(n);
-	const c0 = new Float64Array(n);
-	const c1 = new Float64Array(n);
+/** Both readings of the segment ends (x0, y0, x1, y1 per segment): along y and along x. */
+function coordsOf(xy: Float64Array): { y: Coords; x: Coords } {
+	const n = xy.length / 4;
+	const x0 = new Float64Array(n);
+	const y0 = new Float64Array(n);
+	const x1 = new Float64Array(n);
+	const y1 = new Float64Array(n);
 	for (let i = 0; i < n; i++) {
-		const s = segs[i];
-		if (axis === 'y') {
-			a0[i] = s.p0.y;
-			a1[i] = s.p1.y;
-			c0[i] = s.p0.x;
-			c1[i] = s.p1.x;
-		} else {
-			a0[i] = s.p0.x;
-			a1[i] = s.p1.x;
-			c0[i] = s.p0.y;
-			c1[i] = s.p1.y;
-		}
+		x0[i] = xy[4 * i];
+		y0[i] = xy[4 * i + 1];
+		x1[i] = xy[4 * i + 2];
+		y1[i] = xy[4 * i + 3];
 	}
-	return { a0, a1, c0, c1 };
+	return { y: { a0: y0, a1: y1, c0: x0, c1: x1 }, x: { a0: x0, a1: x1, c0: y0, c1: y1 } };
 }
 
 function chainStarts(k: Coords): number[] {
@@ -110,8 +101,8 @@ function chainsOf(k: Coords, starts: readonly number[]): Chain[] {
 	return out;
 }
 
-function chainPairCrossings(segs: readonly Seg[], k: Coords, a: Chain, b: Chain, out: Vec[]): void {
-	const n = segs.length;
+function chainPairCrossings(xy: Float64Array, k: Coords, a: Chain, b: Chain, out: Vec[]): void {
+	const n = xy.length / 4;
 	const { a0, a1, c0, c1 } = k;
 	let j0 = 0;
 	for (let qa = 0; qa < a.order.length; qa++) {
@@ -128,18 +119,19 @@ function chainPairCrossings(segs: readonly Seg[], k: Coords, a: Chain, b: Chain,
 			const j = Math.max(ia, ib);
 			if (j - i === 1 || (i === 0 && j === n - 1)) continue;
 			if (Math.max(c0[ib], c1[ib]) < cLo || Math.min(c0[ib], c1[ib]) > cHi) continue;
-			const p = segmentsTouch(segs[ia].p0, segs[ia].p1, segs[ib].p0, segs[ib].p1);
+			const p = segmentsTouchXY(xy[4 * ia], xy[4 * ia + 1], xy[4 * ia + 2], xy[4 * ia + 3], xy[4 * ib], xy[4 * ib + 1], xy[4 * ib + 2], xy[4 * ib + 3]);
 			if (p) out.push(p);
 		}
 	}
 }
 
-/** Points where a closed all-straight outline crosses or touches itself (non-neighbouring segments), or null when it has too many chains for this search. */
-export function chainSelfIntersection(outline: Outline): Vec[] | null {
-	const segs = outline.segments as readonly Seg[];
-	const n = segs.length;
-	const ky = coordsOf(segs, 'y');
-	const kx: Coords = { a0: ky.c0, a1: ky.c1, c0: ky.a0, c1: ky.a1 };
+/**
+ * Points where a closed all-straight outline crosses or touches itself (non-neighbouring segments), or
+ * null when it has too many chains for this search. `xy` holds x0, y0, x1, y1 of every segment.
+ */
+export function chainSelfIntersection(xy: Float64Array): Vec[] | null {
+	const n = xy.length / 4;
+	const { y: ky, x: kx } = coordsOf(xy);
 	const sy = chainStarts(ky);
 	const sx = chainStarts(kx);
 	const k = sy.length <= sx.length ? ky : kx;
@@ -160,6 +152,6 @@ export function chainSelfIntersection(outline: Outline): Vec[] | null {
 		}
 	}
 	const out: Vec[] = [];
-	for (const [p, q] of pairs) chainPairCrossings(segs, k, p, q, out);
+	for (const [p, q] of pairs) chainPairCrossings(xy, k, p, q, out);
 	return out;
 }

@@ -34,19 +34,33 @@ const fullCheckCache = new WeakMap<Piece, string[]>();
 
 function fullProblems(piece: Piece): string[] {
 	const segs = piece.outline.segments;
-	if (segs.length < GRID_FROM_SEGMENTS || !allStraight(piece.outline)) return resultProblems(piece);
+	const xy = segs.length < GRID_FROM_SEGMENTS ? null : straightCoords(piece.outline);
+	if (!xy) return resultProblems(piece);
 	const apexes = piece.apexes.map((a) => a.point);
-	const crossing = straightSelfIntersection(piece.outline).filter((p) => !apexes.some((a) => Math.hypot(a.x - p.x, a.y - p.y) < 1e-3));
+	const crossing = straightSelfIntersection(piece.outline, xy).filter((p) => !apexes.some((a) => Math.hypot(a.x - p.x, a.y - p.y) < 1e-3));
 	return [
-		...closureAndLengthProblems(piece.outline),
+		...closureAndLengthProblems(piece.outline, xy),
 		...crossing.slice(0, 1).map((p) => `The outline crosses itself at (${p.x.toFixed(1)}, ${p.y.toFixed(1)}) mm.`),
 		...structureProblems(piece)
 	];
 }
 
-function allStraight(outline: Outline): boolean {
-	for (const s of outline.segments) if (s.kind !== 'line') return false;
-	return true;
+/**
+ * The ends of every segment of an all-straight outline, read once into one array (x0, y0, x1, y1 per
+ * segment) so that the checks below run over numbers rather than objects; null if any segment is a curve.
+ */
+export function straightCoords(outline: Outline): Float64Array | null {
+	const segs = outline.segments;
+	const xy = new Float64Array(4 * segs.length);
+	for (let i = 0; i < segs.length; i++) {
+		const s = segs[i];
+		if (s.kind !== 'line') return null;
+		xy[4 * i] = s.p0.x;
+		xy[4 * i + 1] = s.p0.y;
+		xy[4 * i + 2] = s.p1.x;
+		xy[4 * i + 3] = s.p1.y;
+	}
+	return xy;
 }
 
 /**
@@ -54,25 +68,24 @@ function allStraight(outline: Outline): boolean {
  * pass (squared gaps and lengths); only when that finds something do the kernel checks run, for their
  * messages.
  */
-function closureAndLengthProblems(outline: Outline): string[] {
-	if (allStraight(outline) && straightClean(outline)) return [];
+function closureAndLengthProblems(outline: Outline, xy: Float64Array | null = straightCoords(outline)): string[] {
+	if (xy && straightClean(xy)) return [];
 	return [...outlineClosureProblems(outline).map((p) => p.message), ...outlineShortSegmentProblems(outline).map((p) => p.message)];
 }
 
-function straightClean(outline: Outline): boolean {
-	const segs = outline.segments as readonly { p0: Vec; p1: Vec }[];
-	const n = segs.length;
+function straightClean(xy: Float64Array): boolean {
+	const n = xy.length / 4;
 	const gap2 = CLOSURE_TOLERANCE_MM * CLOSURE_TOLERANCE_MM;
 	const min2 = MIN_SEGMENT_LENGTH_MM * MIN_SEGMENT_LENGTH_MM;
 	for (let i = 0; i < n; i++) {
-		const s = segs[i];
-		const next = segs[i + 1 === n ? 0 : i + 1].p0;
-		const gx = s.p1.x - next.x;
-		const gy = s.p1.y - next.y;
+		const k = 4 * i;
+		const next = i + 1 === n ? 0 : k + 4;
+		const gx = xy[k + 2] - xy[next];
+		const gy = xy[k + 3] - xy[next + 1];
 		// written so that NaN fails
 		if (!(gx * gx + gy * gy <= gap2)) return false;
-		const lx = s.p1.x - s.p0.x;
-		const ly = s.p1.y - s.p0.y;
+		const lx = xy[k + 2] - xy[k];
+		const ly = xy[k + 3] - xy[k + 1];
 		if (!(lx * lx + ly * ly >= min2)) return false;
 	}
 	return true;
@@ -91,24 +104,24 @@ function structureProblems(piece: Piece): string[] {
 }
 
 /** Points where a closed all-straight outline crosses or touches itself: by monotone chains, or on a grid when the outline has too many chains. */
-export function straightSelfIntersection(outline: Outline): Vec[] {
-	return [...neighbourFoldBacks(outline), ...(chainSelfIntersection(outline) ?? gridSelfIntersection(outline))];
+export function straightSelfIntersection(outline: Outline, xy: Float64Array | null = straightCoords(outline)): Vec[] {
+	if (!xy) throw new Error('straightSelfIntersection takes all-straight outlines');
+	return [...neighbourFoldBacks(xy), ...(chainSelfIntersection(xy) ?? gridSelfIntersection(outline))];
 }
 
 /** Vertices where a segment turns straight back along the one before it (a zero-width spike): the two overlap. */
-export function neighbourFoldBacks(outline: Outline): Vec[] {
-	const segs = outline.segments as readonly { p0: Vec; p1: Vec }[];
-	const n = segs.length;
+export function neighbourFoldBacks(xy: Float64Array): Vec[] {
+	const n = xy.length / 4;
 	const out: Vec[] = [];
 	if (n < 3) return out;
 	for (let i = 0; i < n; i++) {
-		const a = segs[i];
-		const b = segs[i + 1 === n ? 0 : i + 1];
-		const rx = a.p1.x - a.p0.x;
-		const ry = a.p1.y - a.p0.y;
-		const sx = b.p1.x - b.p0.x;
-		const sy = b.p1.y - b.p0.y;
-		if (rx * sx + ry * sy < 0 && Math.abs(rx * sy - ry * sx) <= 1e-12 * Math.hypot(rx, ry) * Math.hypot(sx, sy)) out.push(a.p1);
+		const k = 4 * i;
+		const m = i + 1 === n ? 0 : k + 4;
+		const rx = xy[k + 2] - xy[k];
+		const ry = xy[k + 3] - xy[k + 1];
+		const sx = xy[m + 2] - xy[m];
+		const sy = xy[m + 3] - xy[m + 1];
+		if (rx * sx + ry * sy < 0 && Math.abs(rx * sy - ry * sx) <= 1e-12 * Math.hypot(rx, ry) * Math.hypot(sx, sy)) out.push({ x: xy[k + 2], y: xy[k + 3] });
 	}
 	return out;
 }

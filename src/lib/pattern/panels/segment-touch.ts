@@ -1,17 +1,22 @@
 import type { Vec } from '../kernel';
 
-/** Where two straight segments cross or touch (collinear overlap included), or null. */
+/** Where two straight segments a–b and c–d cross or touch (collinear overlap included), or null. */
 export function segmentsTouch(a: Vec, b: Vec, c: Vec, d: Vec): Vec | null {
-	// bounding-box rejection first: most pairs sharing a grid cell are merely close
-	if (Math.max(a.x, b.x) < Math.min(c.x, d.x) - 1e-9 || Math.max(c.x, d.x) < Math.min(a.x, b.x) - 1e-9) return null;
-	if (Math.max(a.y, b.y) < Math.min(c.y, d.y) - 1e-9 || Math.max(c.y, d.y) < Math.min(a.y, b.y) - 1e-9) return null;
-	const rx = b.x - a.x;
-	const ry = b.y - a.y;
-	const sx = d.x - c.x;
-	const sy = d.y - c.y;
+	return segmentsTouchXY(a.x, a.y, b.x, b.y, c.x, c.y, d.x, d.y);
+}
+
+/** segmentsTouch on plain numbers (a = (ax, ay) … d = (dx, dy)). */
+export function segmentsTouchXY(ax: number, ay: number, bx: number, by: number, cx: number, cy: number, dx: number, dy: number): Vec | null {
+	// bounding-box rejection first: most pairs that come close are merely close
+	if (Math.max(ax, bx) < Math.min(cx, dx) - 1e-9 || Math.max(cx, dx) < Math.min(ax, bx) - 1e-9) return null;
+	if (Math.max(ay, by) < Math.min(cy, dy) - 1e-9 || Math.max(cy, dy) < Math.min(ay, by) - 1e-9) return null;
+	const rx = bx - ax;
+	const ry = by - ay;
+	const sx = dx - cx;
+	const sy = dy - cy;
 	const den = rx * sy - ry * sx;
-	const qx = c.x - a.x;
-	const qy = c.y - a.y;
+	const qx = cx - ax;
+	const qy = cy - ay;
 	const rl = Math.hypot(rx, ry);
 	if (Math.abs(den) <= 1e-12 * rl * Math.hypot(sx, sy)) {
 		// parallel: touching only if collinear and overlapping
@@ -21,11 +26,11 @@ export function segmentsTouch(a: Vec, b: Vec, c: Vec, d: Vec): Vec | null {
 		const t1 = t0 + (sx * rx + sy * ry) / rr;
 		const lo = Math.max(0, Math.min(t0, t1));
 		const hi = Math.min(1, Math.max(t0, t1));
-		return lo <= hi ? { x: a.x + lo * rx, y: a.y + lo * ry } : null;
+		return lo <= hi ? { x: ax + lo * rx, y: ay + lo * ry } : null;
 	}
 	const t = (qx * sy - qy * sx) / den;
 	const u = (qx * ry - qy * rx) / den;
 	const e = 1e-12;
 	if (t < -e || t > 1 + e || u < -e || u > 1 + e) return null;
-	return { x: a.x + t * rx, y: a.y + t * ry };
+	return { x: ax + t * rx, y: ay + t * ry };
 }
