@@ -14,7 +14,7 @@ try {
 		for (const group of file.groups) {
 			console.log(`\n${group.fullName}`);
 			for (const b of group.benchmarks) {
-				const ms = (v) => (v < 0.1 ? `${(v * 1000).toFixed(1)} µs` : `${v.toFixed(2)} ms`);
+				const ms = (/** @type {number} */ v) => (v < 0.1 ? `${(v * 1000).toFixed(1)} µs` : `${v.toFixed(2)} ms`);
 				console.log(`  ${b.name.padEnd(44)} median ${ms(b.median).padStart(10)}   p75 ${ms(b.p75).padStart(10)}   (${b.sampleCount} samples)`);
 			}
 		}
