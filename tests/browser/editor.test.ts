@@ -5,6 +5,7 @@ import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-bl
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { outlineBetween, pathLength } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
+import { allowanceEdges } from '../../src/lib/pattern/panels/allowance-edges';
 import { browserLaunch, pageScreenshot } from './chromium';
 import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, toPage } from './editor-helpers';
 
@@ -236,8 +237,15 @@ describe('pattern editor', () => {
 		await page.keyboard.press('Enter');
 		await page.keyboard.press('a');
 		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').count()).toBe(1);
-		await page.keyboard.press('Enter');
+		// a click on a corner gives it its own shape: folded as it will be pressed
+		const corners = allowanceEdges(block).map((e) => e.path.segments[0].p0);
+		await clickOnPiece(page, key, corners[1]);
+		await expect.poll(() => page.locator('#allowance-corner-1').inputValue()).toBe('folded_next');
+		await page.selectOption('#allowance-corner-1', 'folded_prev');
+		await page.click('button:has-text("Apply")');
 		await expect.poll(() => page.locator('[data-testid="recipe"] li').count()).toBe(3);
+		const marked = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		expect(marked.seamAllowance?.corners).toEqual({ 1: 'folded_prev' });
 		const checks = await page.locator('[data-testid="verify-checks"] li').allTextContents();
 		expect(checks.every((c) => c.startsWith('✓'))).toBe(true);
 		await pageScreenshot(page, 'editor-marks');

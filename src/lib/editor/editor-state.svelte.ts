@@ -4,7 +4,7 @@ import { pieceMetrics } from '$lib/pattern/metrics';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { recipeReplayStep } from '$lib/pattern/verify/replay';
 import { versionVerify, type RecipeStepData } from '$lib/pattern/verify/version-verify';
-import type { SeamPair } from '$lib/pattern/panels';
+import type { AllowanceCorner, SeamPair } from '$lib/pattern/panels';
 import { ApiFailure, pieceCreate, pieceLoad, seamPairCreate, seamPairPatch, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
 import { docReplacePiece, pieceIsDirty, type EditorDoc, type HistoryEntry, type PendingSeam, type PieceEdit, type SeamEdit, type StepRecord } from './doc';
 import { pieceDrawing } from './drawing';
@@ -46,6 +46,8 @@ export interface ToolInput {
 	fuse: 'above' | 'below';
 	residualAs: 'dart' | 'pleats';
 	adjust: 'none' | 'a-start' | 'a-end' | 'b-start' | 'b-end';
+	/** Allowance: corners given their own shape (corner index → shape). */
+	allowanceCorners: Record<number, AllowanceCorner>;
 }
 
 function freshInput(): ToolInput {
@@ -75,7 +77,8 @@ function freshInput(): ToolInput {
 		wedge: 'close',
 		fuse: 'below',
 		residualAs: 'dart',
-		adjust: 'none'
+		adjust: 'none',
+		allowanceCorners: {}
 	};
 }
 

@@ -147,11 +147,15 @@ export const cutInstructionSchema = z.enum(['pair', 'single', 'on_fold']);
  * Seam allowance added last (trade-primer §9): the widths asked for and the cut line they give. The
  * outline stays the net stitching line. Any later change of the outline drops it (it must be added again).
  */
+/** How the allowance is shaped at a corner (see panels/allowance.ts): mitred, squared, or folded as pressed. */
+export const ALLOWANCE_CORNER_KINDS = ['mitre', 'square', 'folded_prev', 'folded_next'] as const;
+export const allowanceCornerSchema = z.enum(ALLOWANCE_CORNER_KINDS);
+
 export const seamAllowanceSchema = z.object({
 	defaultWidthMm: finite(),
 	widthsMm: z.record(z.string(), finite()).default({}),
-	corners: z.record(z.string(), z.enum(['mitre', 'square'])).default({}),
-	defaultCorner: z.enum(['mitre', 'square']).default('mitre'),
+	corners: z.record(z.string(), allowanceCornerSchema).default({}),
+	defaultCorner: allowanceCornerSchema.default('mitre'),
 	cutLine: outlineSchema
 });
 

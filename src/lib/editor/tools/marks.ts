@@ -139,7 +139,7 @@ export function allowanceStep(s: EditorState) {
 		const w = s.input.fractions[i];
 		if (w !== undefined) widths[String(q.x)] = w;
 	});
-	return { op: 'allowance', params: { defaultWidthMm: s.input.clearanceMm, widthsMm: widths, defaultCorner: s.input.pressToward === 'leg1' ? 'mitre' : 'square' } };
+	return { op: 'allowance', params: { defaultWidthMm: s.input.clearanceMm, widthsMm: widths, corners: { ...s.input.allowanceCorners }, defaultCorner: s.input.pressToward === 'leg1' ? 'mitre' : 'square' } };
 }
 
 export const allowanceTool: ToolDef = {
@@ -148,7 +148,7 @@ export const allowanceTool: ToolDef = {
 	key: 'a',
 	icon: 'M5 5 L19 5 L19 19 L5 19 Z M2 2 L22 2 L22 22 L2 22 Z',
 	edits: true,
-	hint: () => 'Type the seam allowance; click an edge to give it its own width. Allowance comes last: Enter applies.',
+	hint: () => 'Type the seam allowance; click an edge to give it its own width, or a corner to shape it (folded as it will be pressed). Allowance comes last: Enter applies.',
 	down(s, p) {
 		const h = p.hit;
 		if (!h || !pickPiece(s, h.pieceKey)) return false;
@@ -156,6 +156,12 @@ export const allowanceTool: ToolDef = {
 		if (g && (h.kind === 'edge' || h.kind === 'point')) {
 			const local = h.local;
 			const edges = allowanceEdges(g);
+			// a click on a corner (where one allowance edge ends and the next starts) picks that corner
+			const corner = edges.findIndex((e) => vecDistance(e.path.segments[0].p0, local) <= s.tolMm(6));
+			if (corner >= 0 && edges.length > 1) {
+				if (!(corner in s.input.allowanceCorners)) s.input.allowanceCorners = { ...s.input.allowanceCorners, [corner]: 'folded_next' };
+				return false;
+			}
 			let best = -1;
 			let bestD = s.tolMm(10);
 			for (const e of edges) {

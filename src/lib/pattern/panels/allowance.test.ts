@@ -5,7 +5,8 @@ import { outlineFlatten, pathNearestPoint, polygonSignedArea, type Vec } from '.
 import { allowance } from './allowance';
 import { allowanceEdges } from './allowance-edges';
 import { CLIPPER_SCALE, fromClipper, toClipper } from './clipper-tools';
-import { curvedTopPiece, manyVertexPiece, rectanglePiece } from './fixtures/simple-pieces';
+import { curvedTopPiece, manyVertexPiece, pieceOf, rectanglePiece } from './fixtures/simple-pieces';
+import { outlineFromPolyline } from '../kernel';
 
 /** Distance of a point to the exact stitching line of one edge (kernel) */
 const edgeDistance = (edges: ReturnType<typeof allowanceEdges>, i: number, p: Vec) => pathNearestPoint(edges[i].path, p).distance;
@@ -77,5 +78,74 @@ describe('allowance', () => {
 			expect(r.error.code).toBe('invalid_params');
 			expect(r.error.message).toMatch(/between 0 and 100 mm/);
 		}
+	});
+
+	// Common practice (trade-primer §9): an allowance that is pressed flat before a crossing seam is sewn
+	// (a hem turned up, a seam pressed open) has its end cut as the crossing cut line mirrored across its
+	// own stitching line, found by folding the paper along the stitching line and cutting along the other
+	// cut line. Checked with @flatten-js/core: reflected across the pressed stitching line, the end lies
+	// on the crossing edge's cut line (at its width from that stitching line).
+	describe('folded (pressed) corners', () => {
+		// a flared skirt panel: hem along y = 400 from x = 40 to x = 260, side seams flaring out 40 mm
+		const flared = () => pieceOf('flared', outlineFromPolyline([{ x: 80, y: 0 }, { x: 220, y: 0 }, { x: 260, y: 400 }, { x: 40, y: 400 }]));
+		const hemWidth = 40;
+		const sideWidth = 15;
+		const fl = (v: Vec) => new Flatten.Point(v.x, v.y);
+
+		it('turns the hem up flush with a flared side seam: its end mirrors the side cut line across the hem line', () => {
+			const piece = flared();
+			const edges = allowanceEdges(piece);
+			// edge 2 is the hem (260,400) → (40,400); corner 2 starts it (side seam 1 ends there), corner 3 ends it
+			const r = allowance(piece, { widthsMm: { 0: 10, 1: sideWidth, 2: hemWidth, 3: sideWidth }, corners: { 2: 'folded_next', 3: 'folded_prev' } });
+			if (!r.ok) throw new Error(r.error.message);
+			const hemLine = new Flatten.Line(fl(edges[2].path.segments[0].p0), fl({ x: 40, y: 400 }));
+			const sides = [edges[1], edges[3]].map((e) => {
+				const s = e.path.segments[0] as { p0: Vec; p1: Vec };
+				return new Flatten.Segment(fl(s.p0), fl(s.p1));
+			});
+			// cut-line vertices that end the turned-up hem, beyond the hem's ends
+			const ends = r.cutLine.filter((p) => p.y > 400 + 1 && (p.x < 40 || p.x > 260));
+			expect(ends.length).toBeGreaterThanOrEqual(2);
+			let checked = 0;
+			for (const p of ends) {
+				// folded up across the hem line (y = 400), the point lies at the side seam allowance from the side seam line
+				const up = { x: p.x, y: 800 - p.y };
+				const side = p.x < 150 ? sides[1] : sides[0];
+				const line = new Flatten.Line(side.start, side.end);
+				const [d] = line.distanceTo(fl(up));
+				expect(Math.abs(d - sideWidth)).toBeLessThanOrEqual(0.01);
+				expect(hemLine.distanceTo(fl(p))[0]).toBeLessThanOrEqual(hemWidth + 0.01);
+				checked++;
+			}
+			expect(checked).toBeGreaterThanOrEqual(2);
+			// the hem's end leans in (a flared side seam): at the hem's cut line the allowance is narrower
+			// than at the hem line, by hemWidth × tan of the flare (40 mm over 400 mm) on each side
+			const bottom = r.cutLine.filter((p) => Math.abs(p.y - (400 + hemWidth)) < 0.01).map((p) => p.x);
+			const atHem = r.cutLine.filter((p) => Math.abs(p.y - 400) < 0.01).map((p) => p.x);
+			const flare = 40 / 400;
+			expect(Math.max(...bottom) - Math.min(...bottom)).toBeCloseTo(Math.max(...atHem) - Math.min(...atHem) - 2 * hemWidth * flare, 2);
+		});
+
+		it('gives the plain square end at a right-angled corner', () => {
+			const piece = rectanglePiece('r', 200, 300);
+			const m = allowance(piece, { defaultWidthMm: 10, defaultCorner: 'mitre' });
+			const f = allowance(piece, { defaultWidthMm: 10, defaultCorner: 'folded_next' });
+			if (!m.ok || !f.ok) throw new Error('allowance refused');
+			// with both widths 10 mm a right angle mitres square; folding gives the same corner
+			expect(Math.abs(polygonSignedArea(f.cutLine))).toBeCloseTo(Math.abs(polygonSignedArea(m.cutLine)), 3);
+		});
+
+		it('folds either way: the prev and next choices shape opposite edges', () => {
+			const piece = flared();
+			const widthsMm = { 0: 10, 1: sideWidth, 2: hemWidth, 3: sideWidth };
+			const prev = allowance(piece, { widthsMm, corners: { 2: 'folded_prev' } });
+			const next = allowance(piece, { widthsMm, corners: { 2: 'folded_next' } });
+			if (!prev.ok || !next.ok) throw new Error('allowance refused');
+			// side seam pressed (prev): the side band runs on below the hem line to the hem cut line's mirror
+			// (wider at the bottom); hem pressed (next): the hem band ends short of the side cut line
+			const corner = (cut: readonly Vec[]) => cut.filter((p) => p.x > 255 && p.y > 380);
+			const reach = (cut: readonly Vec[]) => Math.max(...corner(cut).map((p) => p.x));
+			expect(reach(prev.cutLine)).toBeGreaterThan(reach(next.cutLine) + 1);
+		});
 	});
 });

@@ -7,7 +7,7 @@ import {
 	type Outline,
 	type Vec
 } from '../kernel';
-import type { Piece } from '../piece-schema';
+import type { ALLOWANCE_CORNER_KINDS, Piece } from '../piece-schema';
 import { allowanceEdges, bridgedOutline, type AllowanceEdge } from './allowance-edges';
 import { ClipperLib, CLIPPER_SCALE, fromClipper, toClipper, type IntPath } from './clipper-tools';
 import { panelRefuse, panelReport, type PanelFailure } from './panel-types';
@@ -20,12 +20,16 @@ import type { OperationReport } from '../operation-result';
  * open band with butt ends and round joins (so every point of the cut line along an edge lies at that
  * edge's width); corners are filled per corner: 'mitre' (the two cut lines run on until they meet; longer than
  * 6 widths → squared) or 'square' (cut straight across, perpendicular to the corner's bisector, at the
- * larger of the two widths from the corner; where the mitre is shorter than that, it is the mitre). Fold edges get
+ * larger of the two widths from the corner; where the mitre is shorter than that, it is the mitre), or
+ * 'folded_prev' / 'folded_next' (the allowance of the edge ending / starting at the corner is pressed flat,
+ * folded along its stitching line, before the other seam is sewn across it: its end is cut as the other
+ * edge's cut line reflected across its stitching line, so that folded it lies flush with that cut line — a
+ * hem turned up at a flared side seam, a seam pressed open under a crossing seam). Fold edges get
  * none, and the allowance is trimmed at the fold line so neighbouring edges meet it square. The
  * stitching line is kept as it is; the cut line is returned as a polyline outline.
  */
 
-export type AllowanceCorner = 'mitre' | 'square';
+export type AllowanceCorner = (typeof ALLOWANCE_CORNER_KINDS)[number];
 
 export interface AllowanceParams {
 	readonly defaultWidthMm?: number;
@@ -86,6 +90,38 @@ function clipHalfPlane(poly: readonly Vec[], origin: Vec, dir: Vec, limit: numbe
 	return out;
 }
 
+/** p reflected across the line through o with unit direction t. */
+function reflectAcross(p: Vec, o: Vec, t: Vec): Vec {
+	const dx = p.x - o.x;
+	const dy = p.y - o.y;
+	const along = dx * t.x + dy * t.y;
+	return { x: o.x + 2 * along * t.x - dx, y: o.y + 2 * along * t.y - dy };
+}
+
+/**
+ * Corner fill at V when one edge's allowance is folded (pressed) along its stitching line before the other
+ * seam crosses it. Edge 1 ends at V (tangent t1, cut line through A), edge 2 starts there (t2, cut line
+ * through B). The other edge's cut line runs on to the pressed edge's stitching line (P0); from there the
+ * pressed band is closed by that cut line reflected across the pressed stitching line, out to the pressed
+ * band's own cut line (P1). Null when the lines do not meet (edges in line: no corner).
+ */
+function foldedCornerFill(V: Vec, A: Vec, t1: Vec, B: Vec, t2: Vec, kind: 'folded_prev' | 'folded_next'): Vec[] | null {
+	if (kind === 'folded_next') {
+		// edge 2 pressed: edge 1's cut line meets edge 2's stitching line at P0, its mirror runs on to edge 2's cut line
+		const P0 = lineHit(A, t1, V, t2);
+		if (!P0) return null;
+		const far = reflectAcross({ x: P0.x + t1.x, y: P0.y + t1.y }, V, t2);
+		const P1 = lineHit(P0, { x: far.x - P0.x, y: far.y - P0.y }, B, t2);
+		return P1 ? [V, A, P0, P1, B] : null;
+	}
+	// edge 1 pressed: edge 2's cut line, run back, meets edge 1's stitching line at P0; its mirror runs to edge 1's cut line
+	const P0 = lineHit(B, t2, V, t1);
+	if (!P0) return null;
+	const far = reflectAcross({ x: P0.x - t2.x, y: P0.y - t2.y }, V, t1);
+	const P1 = lineHit(P0, { x: far.x - P0.x, y: far.y - P0.y }, A, t1);
+	return P1 ? [V, A, P1, P0, B] : null;
+}
+
 export function allowance(piece: Piece, params: AllowanceParams = {}): AllowanceResult {
 	const def = params.defaultWidthMm ?? DEFAULT_ALLOWANCE_MM;
 	const edges = allowanceEdges(piece).map((e) => {
@@ -141,8 +177,10 @@ export function allowance(piece: Piece, params: AllowanceParams = {}): Allowance
 			const by = n1.y + n2.y;
 			const bl = Math.hypot(bx, by) || 1;
 			const bis = { x: bx / bl, y: by / bl };
-			// mitre: the cut lines run on until they meet; squared: cut across the bisector at the larger width
-			const quad = M ? [V, A, M, B] : [V, A, B];
+			// mitre: the cut lines run on until they meet; squared: cut across the bisector at the larger width;
+			// folded: the pressed edge's band runs on to the other cut line reflected across its stitching line
+			const folded = kind === 'folded_prev' || kind === 'folded_next' ? foldedCornerFill(V, A, t1, B, t2, kind) : null;
+			const quad = folded ?? (M ? [V, A, M, B] : [V, A, B]);
 			const fill = clipHalfPlane(quad, V, bis, kind === 'square' ? wMax : MITRE_LIMIT * wMax);
 			if (Math.abs(polygonSignedArea(fill)) > 1e-9) subjects.push(oriented(toClipper(fill)));
 		}

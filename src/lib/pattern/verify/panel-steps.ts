@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { allowance, fold, grain, notch, styleLine, unfold } from '../panels';
 import { refuse, type OperationResult } from '../operation-result';
-import { lineMarkSchema, pathSchema, vecSchema, type Piece } from '../piece-schema';
+import { allowanceCornerSchema, lineMarkSchema, pathSchema, vecSchema, type Piece } from '../piece-schema';
 
 /**
  * Recipe steps of the panel operations that act on one piece (the ones that make or merge pieces,
@@ -26,8 +26,8 @@ export const panelStepSchemas = {
 	allowance: z.object({
 		defaultWidthMm: finite().optional(),
 		widthsMm: z.record(z.string(), finite()).optional(),
-		corners: z.record(z.string(), z.enum(['mitre', 'square'])).optional(),
-		defaultCorner: z.enum(['mitre', 'square']).optional()
+		corners: z.record(z.string(), allowanceCornerSchema).optional(),
+		defaultCorner: allowanceCornerSchema.optional()
 	})
 } as const;
 
