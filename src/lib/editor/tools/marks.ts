@@ -1,7 +1,7 @@
 import { outlineNearestPoint, vecDistance } from '$lib/geometry';
 import { allowanceEdges } from '$lib/pattern/panels/allowance-edges';
 import type { EditorState } from '../editor-state.svelte';
-import { fmtLength } from '../units';
+import { fmtArea, fmtDeg, fmtLength } from '../units';
 import { type ToolDef } from './types';
 import { mm, stepPreview, toolPiece } from './common';
 
@@ -28,10 +28,13 @@ function pickPiece(s: EditorState, key: string | undefined): boolean {
 
 function reportReadouts(s: EditorState) {
 	return (v: Readonly<Record<string, number>>) =>
-		Object.entries(v).map(([k, x]) => ({
-			label: k.replace(/([A-Z])/g, ' $1').replace(/ (Mm|Rad|Deg)$/, '').toLowerCase(),
-			value: k.endsWith('Mm') ? mm(s, x) : k.endsWith('Rad') ? `${((x * 180) / Math.PI).toFixed(2)}°` : x.toFixed(2)
-		}));
+		Object.entries(v).map(([k, x]) => {
+			const words = k.replace(/([A-Z])/g, ' $1').replace(/ (Mm2|Mm|Rad|Deg)$/, '').toLowerCase();
+			return {
+				label: words.charAt(0).toUpperCase() + words.slice(1),
+				value: k.endsWith('Mm2') ? fmtArea(x, s.unit) : k.endsWith('Mm') ? mm(s, x) : k.endsWith('Rad') ? fmtDeg(x) : Number.isInteger(x) ? String(x) : x.toFixed(2)
+			};
+		});
 }
 
 export function notchStep(s: EditorState) {
