@@ -141,11 +141,20 @@ describe('pattern editor', () => {
 		// redo the separate too and save: the two new pieces are stored with the seam pair between them
 		await page.keyboard.press('Control+Shift+z');
 		await expect.poll(() => page.evaluate(() => window.dartelierEditor!.pieceKeys().length)).toBe(2);
+		// a notch on one new piece before saving: it is stored as made (version 1), the notch as version 2
+		const [newKey] = await page.evaluate(() => window.dartelierEditor!.pieceKeys());
+		const made0 = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), newKey)) as Piece;
+		const s0 = made0.outline.segments[0];
+		await page.keyboard.press('n');
+		await clickOnPiece(page, newKey, lerp(s0.p0, s0.kind === 'line' ? s0.p1 : s0.p3, 0.5));
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('[data-testid="recipe"]').textContent()).toContain('notch');
 		await page.fill('#save-message', 'Front cut along the style line');
 		await page.click('button:has-text("Save version")');
 		await page.waitForSelector('[data-testid="save-report"]', { timeout: 20_000 });
 		await page.waitForSelector('button:has-text("Save version")', { timeout: 20_000 });
 		expect(await page.locator('[role="alert"]').count()).toBe(0);
+		expect((await page.locator('[data-testid="save-report"]').allTextContents()).join(' ')).toContain('version 2 saved');
 		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();
 		type Side = { x: number; y: number };
 		type Pair = { label: string; aPieceId: string; bPieceId: string; aEdge: { from: Side; to: Side }; bEdge: { from: Side; to: Side }; toleranceMm: number };
@@ -165,6 +174,11 @@ describe('pattern editor', () => {
 		const la = along(sp.aPieceId, sp.aEdge);
 		const lb = along(sp.bPieceId, sp.bEdge);
 		expect(Math.abs(la - lb)).toBeLessThan(sp.toleranceMm);
+		// the notched piece: two versions, the second replayed by the server from the notch step
+		const notched = made.find((p) => p.shown.geometry.notches.length > made0.notches.length);
+		expect(notched).toBeDefined();
+		const versions = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/pieces/${notched!.id}/versions`)).json();
+		expect(versions.versions.map((v: { number: number }) => v.number).sort()).toEqual([1, 2]);
 		await f.context.close();
 	});
 

@@ -561,24 +561,38 @@ export class EditorState {
 		}
 	}
 
+	/** Puts a piece's new state in place of the old (its key changes when a new piece is first stored). */
+	private pieceRekey(oldKey: string, next: PieceEdit): void {
+		const key = next.key;
+		this.doc = docReplacePiece(this.doc, oldKey, () => next);
+		if (key !== oldKey && this.doc.pendingSeams?.length) {
+			const k = (x: string) => (x === oldKey ? key : x);
+			this.doc = { ...this.doc, pendingSeams: this.doc.pendingSeams.map((sp) => ({ ...sp, a: { ...sp.a, pieceKey: k(sp.a.pieceKey) }, b: { ...sp.b, pieceKey: k(sp.b.pieceKey) } })) };
+		}
+		if (this.selection.pieceKey === oldKey) this.selection.pieceKey = key;
+	}
+
 	private async saveOne(p: PieceEdit, message: string): Promise<SaveReport | null> {
 		try {
 			let r: SaveResult;
 			let key = p.key;
 			if (p.origin) {
-				const c = await pieceCreate(this.studioId, this.styleId, { name: p.name, message, geometry: p.geometry, origin: p.origin });
+				// the new piece is stored as made first; edits made on it before saving follow as version 2, so the
+				// server replays them like any other edit
+				const made = p.base ?? p.geometry;
+				const edited = p.steps.length > 0;
+				const c = await pieceCreate(this.studioId, this.styleId, { name: p.name, message: edited ? `${message.slice(0, 470)} (as made)` : message, geometry: made, origin: p.origin });
 				r = c;
 				key = c.piece.id;
+				if (edited) {
+					// stored as made; the edits stay pending on it and are saved next
+					this.pieceRekey(p.key, { ...p, key, base: made, baseVersionId: c.version.id, baseNumber: c.version.number, origin: null });
+					return await this.saveOne(this.piece(key)!, message);
+				}
 			} else {
 				r = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p), declared: this.declaredOf(p) });
 			}
-			const saved: PieceEdit = { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null };
-			this.doc = docReplacePiece(this.doc, p.key, () => saved);
-			if (key !== p.key && this.doc.pendingSeams?.length) {
-				const k = (x: string) => (x === p.key ? key : x);
-				this.doc = { ...this.doc, pendingSeams: this.doc.pendingSeams.map((sp) => ({ ...sp, a: { ...sp.a, pieceKey: k(sp.a.pieceKey) }, b: { ...sp.b, pieceKey: k(sp.b.pieceKey) } })) };
-			}
-			if (this.selection.pieceKey === p.key) this.selection.pieceKey = key;
+			this.pieceRekey(p.key, { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null });
 			return { pieceKey: key, name: p.name, number: r.version.number, message, checks: r.checks, warnings: r.warnings };
 		} catch (e) {
 			if (e instanceof ApiFailure && e.status === 409 && !p.origin) {
@@ -720,7 +734,7 @@ function pieceEditNew(key: string, g: Piece, offset: Vec, originParams: Record<s
 		fabric: g.fabric,
 		baseVersionId: null,
 		baseNumber: 0,
-		base: null,
+		base: g,
 		geometry: g,
 		steps: [],
 		offset,
