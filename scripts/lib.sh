@@ -143,7 +143,10 @@ pg_start() {
 	local bin; bin="$(pg_bin_dir)"
 	local opts="-c listen_addresses=127.0.0.1 -p $PG_PORT -c unix_socket_directories=$PG_DATA"
 	if [ "$PG_NAME" != "dev" ]; then
-		opts="$opts -c fsync=off -c synchronous_commit=off -c full_page_writes=off"
+		# Test clusters skip flushing to disk (a machine crash may lose them; they are rebuilt) but keep
+		# synchronous_commit on: a commit is acknowledged only once it is in the WAL, so a server crash
+		# (the outage test stops PostgreSQL with -m immediate) never loses an acknowledged save.
+		opts="$opts -c fsync=off -c full_page_writes=off"
 	fi
 	local log="$PG_DATA/server.log" attempt
 	for attempt in 1 2 3 4 5; do
@@ -170,14 +173,18 @@ pg_ensure_database() {
 	fi
 }
 
+# pg_stop dev|test [fast|immediate|smart]: fast (the default) ends sessions and shuts down cleanly;
+# immediate ends every process at once, as a crash would (recovery runs on the next start).
 pg_stop() {
 	pg_settings "$1"
+	local mode="${2:-fast}"
+	case "$mode" in fast|immediate|smart) ;; *) die "unknown stop mode '$mode' (fast, immediate or smart)" ;; esac
 	if ! pg_running; then
 		say "PostgreSQL ($PG_NAME) is not running"
 		return 0
 	fi
-	as_pg "$(pg_bin_dir)/pg_ctl" -D "$PG_DATA" -m fast -w stop >/dev/null
-	say "PostgreSQL ($PG_NAME) stopped"
+	as_pg "$(pg_bin_dir)/pg_ctl" -D "$PG_DATA" -m "$mode" -w stop >/dev/null
+	say "PostgreSQL ($PG_NAME) stopped ($mode)"
 }
 
 pg_status() {

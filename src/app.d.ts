@@ -10,6 +10,8 @@ declare global {
 		interface Locals {
 			user: { id: string; email: string; name: string } | null;
 			session: { id: string; expiresAt: Date } | null;
+			/** Set when the database could not be reached while answering (answered 503). */
+			databaseUnavailable?: boolean;
 		}
 		// interface PageData {}
 		// interface PageState {}

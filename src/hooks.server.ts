@@ -1,6 +1,8 @@
 import type { Handle, HandleServerError } from '@sveltejs/kit';
 import { cookieSecure, lucia, sessionCookieClear, sessionCookieSet } from '$lib/server/auth/lucia';
 import { decide, ruleLookup, signInPath } from '$lib/server/authz';
+import { DATABASE_RETRY_AFTER_S, DATABASE_UNAVAILABLE_MESSAGE, errorIsDatabaseUnavailable } from '$lib/server/db/unavailable';
+import { databaseUnavailableJson, databaseUnavailablePage } from '$lib/server/db/unavailable-response';
 import { defaultErrorCode, defaultErrorMessage, jsonError } from '$lib/server/http-errors';
 import { cspNonce, scriptsWithNonce, securityHeadersSet } from '$lib/server/security-headers';
 
@@ -103,20 +105,47 @@ function mutable(response: Response): Response {
 	}
 }
 
-export const handle: Handle = async ({ event, resolve }) => {
-	const nonce = cspNonce();
+/** The session check, the gate and the route itself; the database may be away during any of them. */
+async function respond(event: Event, resolve: Parameters<Handle>[0]['resolve'], nonce: string): Promise<Response> {
 	const cookieChange = await sessionLoad(event);
-
-	let response: Response;
 	const early =
 		isApi(event.url.pathname) && foreignOrigin(event)
 			? jsonError(403, 'forbidden', 'Cross-site requests are not allowed.')
 			: await gate(event);
 	if (early) {
-		response = mutable(early);
+		const response = mutable(early);
 		if (cookieChange) response.headers.append('set-cookie', cookieChange);
-	} else {
-		response = await resolve(event, { transformPageChunk: ({ html }) => scriptsWithNonce(html, nonce) });
+		return response;
+	}
+	return resolve(event, { transformPageChunk: ({ html }) => scriptsWithNonce(html, nonce) });
+}
+
+/**
+ * While the database is away every request is answered 503 (JSON on /api, a page that retries by
+ * itself for people), never 500 and never a crash; when it is back, requests are served again.
+ */
+function unavailable(event: Event, rendered?: Response): Response {
+	if (isApi(event.url.pathname)) return databaseUnavailableJson();
+	const type = rendered?.headers.get('content-type') ?? '';
+	if (rendered && !type.includes('text/html')) {
+		// form actions and client-side data requests keep SvelteKit's JSON shape, with our status
+		const headers = new Headers(rendered.headers);
+		headers.set('retry-after', String(DATABASE_RETRY_AFTER_S));
+		return new Response(rendered.body, { status: 503, headers });
+	}
+	return databaseUnavailablePage();
+}
+
+export const handle: Handle = async ({ event, resolve }) => {
+	const nonce = cspNonce();
+	let response: Response;
+	try {
+		response = await respond(event, resolve, nonce);
+		if (event.locals.databaseUnavailable && response.status >= 500) response = unavailable(event, response);
+	} catch (e) {
+		if (!errorIsDatabaseUnavailable(e)) throw e;
+		console.warn(`[db] ${event.request.method} ${event.url.pathname}: database unavailable`);
+		response = unavailable(event);
 	}
 	if (isApi(event.url.pathname)) {
 		response = await apiErrorShape(response);
@@ -128,6 +157,11 @@ export const handle: Handle = async ({ event, resolve }) => {
 };
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (errorIsDatabaseUnavailable(error)) {
+		event.locals.databaseUnavailable = true;
+		console.warn(`[db] ${event.request.method} ${event.url.pathname}: database unavailable`);
+		return { message: DATABASE_UNAVAILABLE_MESSAGE, code: 'unavailable' };
+	}
 	if (status >= 500) {
 		const id = crypto.randomUUID();
 		console.error(`[error ${id}] ${event.request.method} ${event.url.pathname}:`, error);

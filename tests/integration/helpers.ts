@@ -32,6 +32,7 @@ interface RequestOptions {
 	body?: BodyInit;
 	headers?: Record<string, string>;
 	origin?: string | null;
+	signal?: AbortSignal;
 }
 
 /** Keeps the session cookie like a browser would; never follows redirects. */
@@ -54,7 +55,7 @@ export class Client {
 			headers.accept = 'application/json';
 			body = JSON.stringify(o.json);
 		}
-		const res = await fetch(this.base + path, { method, headers, body, redirect: 'manual' });
+		const res = await fetch(this.base + path, { method, headers, body, redirect: 'manual', signal: o.signal });
 		this.lastSetCookies = res.headers.getSetCookie();
 		for (const c of this.lastSetCookies) {
 			const m = c.match(new RegExp(`^${SESSION_COOKIE}=([^;]*)`));

@@ -1,5 +1,7 @@
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { databaseUnavailableJson } from './db/unavailable-response';
+import { errorIsDatabaseUnavailable } from './db/unavailable';
 import { ApiError, defaultErrorCode, jsonError } from './http-errors';
 import { fieldErrors } from './validation';
 
@@ -21,6 +23,7 @@ export function apiRoute<E extends RequestEvent>(handler: (event: E) => Promise<
 				return jsonError(e.status, e.body.code ?? defaultErrorCode(e.status), e.body.message, e.body.fields);
 			}
 			if (isRedirect(e)) throw e;
+			if (errorIsDatabaseUnavailable(e)) return databaseUnavailableJson();
 			console.error(`[api] ${event.request.method} ${event.url.pathname}:`, e);
 			return jsonError(500);
 		}
@@ -63,28 +66,60 @@ export async function readBodyLimited(request: Request, limit = API_BODY_LIMIT):
 	return Buffer.concat(chunks).toString('utf8');
 }
 
+/** Reads and size-checks a JSON body and parses it, without validating its shape. */
+async function readJsonValue(request: Request, limit: number): Promise<unknown> {
+	const type = request.headers.get('content-type') ?? '';
+	if (!/^application\/(.+\+)?json\b/i.test(type)) {
+		throw new ApiError(415, 'unsupported_media_type', 'Send JSON (Content-Type: application/json).');
+	}
+	const text = await readBodyLimited(request, limit);
+	try {
+		return text === '' ? undefined : JSON.parse(text);
+	} catch {
+		throw new ApiError(400, 'invalid_json', 'The request body is not valid JSON.');
+	}
+}
+
+function validated<S extends z.ZodType>(value: unknown, schema: S): z.output<S> {
+	const parsed = schema.safeParse(value);
+	if (!parsed.success) {
+		throw new ApiError(400, 'invalid', 'Some fields are not valid.', fieldErrors(parsed.error));
+	}
+	return parsed.data;
+}
+
 /** Reads, size-checks, parses and validates a JSON body; 400 with field errors when it does not fit. */
 export async function readJson<S extends z.ZodType>(
 	request: Request,
 	schema: S,
 	limit = API_BODY_LIMIT
 ): Promise<z.output<S>> {
-	const type = request.headers.get('content-type') ?? '';
-	if (!/^application\/(.+\+)?json\b/i.test(type)) {
-		throw new ApiError(415, 'unsupported_media_type', 'Send JSON (Content-Type: application/json).');
+	return validated(await readJsonValue(request, limit), schema);
+}
+
+/**
+ * The body of every PATCH route: a JSON object holding at least one of the fields the resource lets
+ * change. Anything else (an empty object, only unknown keys, only `flags` such as acceptWarnings, an
+ * array, null, a number, a string) is answered 400 with the list of fields that can be changed,
+ * before any database work. Unknown keys next to known ones are ignored, as in every other body.
+ */
+export async function readPatch<S extends z.ZodObject>(
+	request: Request,
+	schema: S,
+	options: { flags?: readonly string[]; limit?: number; nothingMessage?: (fields: string) => string } = {}
+): Promise<z.output<S>> {
+	const value = await readJsonValue(request, options.limit ?? API_BODY_LIMIT);
+	const flags = new Set(options.flags ?? []);
+	const changeable = Object.keys(schema.shape).filter((k) => !flags.has(k));
+	const list = changeable.join(', ');
+	if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+		throw new ApiError(400, 'invalid', `Send a JSON object with the fields to change (${list}).`);
 	}
-	const text = await readBodyLimited(request, limit);
-	let value: unknown;
-	try {
-		value = text === '' ? undefined : JSON.parse(text);
-	} catch {
-		throw new ApiError(400, 'invalid_json', 'The request body is not valid JSON.');
+	if (!changeable.some((k) => (value as Record<string, unknown>)[k] !== undefined)) {
+		const message = options.nothingMessage?.(list) ?? `Nothing to change: send at least one of ${list}.`;
+		throw new ApiError(400, 'nothing_to_change', message);
 	}
-	const parsed = schema.safeParse(value);
-	if (!parsed.success) {
-		throw new ApiError(400, 'invalid', 'Some fields are not valid.', fieldErrors(parsed.error));
-	}
-	return parsed.data;
+	return validated(value, schema);
 }
 
 /** Validates route params; 400 with field errors. */

@@ -28,7 +28,8 @@ const DEFAULT_CODES: Record<number, [string, string]> = {
 	413: ['payload_too_large', 'The request body is too large.'],
 	415: ['unsupported_media_type', 'Send JSON (Content-Type: application/json).'],
 	429: ['too_many_requests', 'Too many requests. Try again later.'],
-	500: ['internal', 'Something went wrong on our side.']
+	500: ['internal', 'Something went wrong on our side.'],
+	503: ['unavailable', 'The service is not available right now. Try again in a moment.']
 };
 
 export function defaultErrorCode(status: number): string {

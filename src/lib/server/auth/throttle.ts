@@ -1,6 +1,5 @@
-import pg from 'pg';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
-import { databaseUrl } from '../db';
+import { databaseUrl, poolCreate } from '../db';
 
 /**
  * Sign-in throttling, shared by every app instance through PostgreSQL (table sign_in_limits, created
@@ -16,7 +15,7 @@ let limiters: { email: RateLimiterPostgres; address: RateLimiterPostgres } | und
 
 function limitersGet() {
 	if (!limiters) {
-		const pool = new pg.Pool({ connectionString: databaseUrl(), max: 2 });
+		const pool = poolCreate(databaseUrl(), 2, 'sign-in limits');
 		const common = {
 			storeClient: pool,
 			storeType: 'pool',

@@ -8,16 +8,42 @@ export type DbOrTx = Kysely<Database> | Transaction<Database>;
 // timestamptz and bigint come back as Date and string by default; counts as numbers are easier.
 pg.types.setTypeParser(20, (v) => Number(v));
 
+/**
+ * How long a request waits for a connection (a free one from the pool, or a new one) before it is
+ * answered 503: while the database is away, requests fail fast instead of hanging. A restarting or
+ * stopped server closes its connections, so statements in flight fail at once too.
+ */
+export const DB_CONNECT_TIMEOUT_MS = 3000;
+
 export function databaseUrl(): string {
 	const url = process.env.DATABASE_URL;
 	if (!url) throw new Error('DATABASE_URL is not set: start the app through `npm start`.');
 	return url;
 }
 
-export function dbCreate(url = databaseUrl(), max = 10): Db {
-	return new Kysely<Database>({
-		dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: url, max }) })
+/**
+ * A pool that survives its database going away: an idle client whose connection drops is removed by
+ * pg-pool and reported through the pool's 'error' event, which would end the process when nobody
+ * listens. We listen, log once per outage and let the pool open new connections when asked again.
+ */
+export function poolCreate(url: string, max: number, name = 'app'): pg.Pool {
+	const pool = new pg.Pool({
+		connectionString: url,
+		max,
+		connectionTimeoutMillis: DB_CONNECT_TIMEOUT_MS,
+		keepAlive: true
 	});
+	let lastLogMs = 0;
+	pool.on('error', (err) => {
+		const now = Date.now();
+		if (now - lastLogMs > 5000) console.warn(`[db:${name}] an idle connection was dropped: ${err.message}`);
+		lastLogMs = now;
+	});
+	return pool;
+}
+
+export function dbCreate(url = databaseUrl(), max = 10): Db {
+	return new Kysely<Database>({ dialect: new PostgresDialect({ pool: poolCreate(url, max) }) });
 }
 
 let shared: Db | undefined;

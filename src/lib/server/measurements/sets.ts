@@ -72,7 +72,7 @@ export const measurementSetPatchSchema = z.object({
 });
 export type MeasurementSetPatchInput = z.output<typeof measurementSetPatchSchema>;
 
-export const measurementSetDuplicateSchema = z.object({ name: setNameSchema.optional() }).default({});
+export const measurementSetDuplicateSchema = z.object({ name: setNameSchema.optional() });
 
 /** What a set looks like to the API and the pages. */
 export interface MeasurementSetView {

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { apiRoute, readJson } from '$lib/server/api';
+import { apiRoute, readPatch } from '$lib/server/api';
 import { ALL_ROLES, OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
@@ -19,7 +19,7 @@ const patchSchema = z.object({ name: studioNameSchema });
 
 export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { studioId, role } = await requireRole(event, OWNER);
-	const body = await readJson(event.request, patchSchema);
+	const body = await readPatch(event.request, patchSchema);
 	const studio = await studiosRename(db(), studioId, body.name);
 	if (!studio) throw new ApiError(404, 'not_found', 'No such studio.');
 	return json({ studio: { ...studio, role } });

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { apiRoute, readJson } from '$lib/server/api';
+import { apiRoute, readPatch } from '$lib/server/api';
 import { ALL_ROLES, EDITORS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { measurementSetDelete, measurementSetOr404, measurementSetPatch, measurementSetPatchSchema, setView } from '$lib/server/measurements';
@@ -13,7 +13,7 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 /** Charts are read-only (409). */
 export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { studioId } = await requireRole(event, EDITORS);
-	const body = await readJson(event.request, measurementSetPatchSchema);
+	const body = await readPatch(event.request, measurementSetPatchSchema, { flags: ['acceptWarnings'] });
 	return json({ measurementSet: await measurementSetPatch(db(), studioId, event.params.setId, body) });
 });
 

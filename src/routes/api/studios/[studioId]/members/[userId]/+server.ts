@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { apiRoute, parseParams, readJson } from '$lib/server/api';
+import { apiRoute, parseParams, readPatch } from '$lib/server/api';
 import { OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
@@ -20,7 +20,7 @@ function refused(r: Extract<MemberChange, { ok: false }>): ApiError {
 export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { studioId } = await requireRole(event, OWNER);
 	const { userId } = parseParams(event.params, paramsSchema);
-	const body = await readJson(event.request, patchSchema);
+	const body = await readPatch(event.request, patchSchema);
 	const r = await memberRoleChange(db(), { studioId, userId, role: body.role });
 	if (!r.ok) throw refused(r);
 	return json({ member: { userId, role: body.role } });

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { apiRoute, parseParams, readJson } from '$lib/server/api';
+import { apiRoute, parseParams, readPatch } from '$lib/server/api';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { stylesUpdate } from '$lib/server/repositories/styles';
@@ -22,6 +22,6 @@ export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { studioId } = await requireRole(event, EDITORS);
 	const { styleId } = parseParams(event.params, params);
 	await styleOr404(db(), studioId, styleId);
-	const patch = await readJson(event.request, stylePatchSchema);
+	const patch = await readPatch(event.request, stylePatchSchema);
 	return json({ style: await stylesUpdate(db(), styleId, patch) });
 });

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { apiRoute, parseParams, readJson } from '$lib/server/api';
+import { apiRoute, parseParams, readPatch } from '$lib/server/api';
 import { EDITORS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
@@ -18,7 +18,7 @@ export const PATCH: RequestHandler = apiRoute(async (event) => {
 	const { styleId, seamPairId } = parseParams(event.params, params);
 	await styleOr404(db(), studioId, styleId);
 	if (!(await seamPairsInStyle(db(), styleId, seamPairId))) throw new ApiError(404, 'not_found', 'No such seam pair in this style.');
-	const body = await readJson(event.request, seamPairPatchSchema);
+	const body = await readPatch(event.request, seamPairPatchSchema);
 	const pair = await seamPairsUpdate(db(), seamPairId, {
 		label: body.label,
 		aEdge: body.a,
