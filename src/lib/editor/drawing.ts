@@ -1,4 +1,3 @@
-import ClipperLib from 'clipper-lib';
 import {
 	outlineContainsPoint,
 	outlineFlatten,
@@ -23,10 +22,8 @@ import type { Piece } from '$lib/pattern/piece-schema';
  * piece's own millimetres. Polylines come from the kernel's flattening: drawing only, never measuring.
  */
 
-/** Allowance shown around the stitching line when drawing the cut line (display only). */
-export const DISPLAY_ALLOWANCE_MM = 10;
-/** Clipper works on integers: coordinates in µm (mm × 1000). */
-const CLIPPER_SCALE = 1000;
+/** How far a notch mark reaches outside the stitching line (mm). */
+const NOTCH_OUTSIDE_MM = 6;
 /** Flattening tolerance for the screen (mm). */
 const DRAW_TOLERANCE_MM = 0.1;
 
@@ -41,9 +38,11 @@ export interface PieceDrawing {
 	/** Bounding box including the cut line. */
 	readonly outerBox: BoundingBox;
 	readonly stitch: readonly Vec[];
+	/**
+	 * The cut line of the piece's own seam allowance; empty for a net piece (no allowance set): nothing
+	 * that looks like an allowance is drawn where none is set.
+	 */
 	readonly cut: readonly (readonly Vec[])[];
-	/** The cut line is the piece's own seam allowance (else a 10 mm display allowance). */
-	readonly cutIsReal: boolean;
 	readonly internal: readonly (readonly Vec[])[];
 	/** Thin ink marks: notches, dart centre lines, pleat lines, sewn legs, caps. */
 	readonly marks: readonly (readonly Vec[])[];
@@ -69,19 +68,6 @@ export function pieceDrawing(piece: Piece): PieceDrawing {
 	return d;
 }
 
-function cutLine(points: readonly Vec[]): Vec[][] {
-	try {
-		const path = points.map((p) => ({ X: Math.round(p.x * CLIPPER_SCALE), Y: Math.round(p.y * CLIPPER_SCALE) }));
-		const co = new ClipperLib.ClipperOffset(2, 0.05 * CLIPPER_SCALE);
-		co.AddPath(path, ClipperLib.JoinType.jtMiter, ClipperLib.EndType.etClosedPolygon);
-		const out: ClipperLib.Paths = [];
-		co.Execute(out, DISPLAY_ALLOWANCE_MM * CLIPPER_SCALE);
-		return out.map((poly) => poly.map((q) => ({ x: q.X / CLIPPER_SCALE, y: q.Y / CLIPPER_SCALE })));
-	} catch {
-		return [];
-	}
-}
-
 function notchMarks(piece: Piece): Vec[][] {
 	const out: Vec[][] = [];
 	for (const n of piece.notches) {
@@ -93,7 +79,7 @@ function notchMarks(piece: Piece): Vec[][] {
 		const offsets = n.count === 2 ? [-1.5, 1.5] : [0];
 		for (const o of offsets) {
 			const a = vecAdd(near.point, vecScale(along, o));
-			out.push([vecAdd(a, vecScale(normal, -DISPLAY_ALLOWANCE_MM * 0.6)), vecAdd(a, vecScale(normal, 5))]);
+			out.push([vecAdd(a, vecScale(normal, -NOTCH_OUTSIDE_MM)), vecAdd(a, vecScale(normal, 5))]);
 		}
 	}
 	return out;
@@ -102,7 +88,7 @@ function notchMarks(piece: Piece): Vec[][] {
 function buildDrawing(piece: Piece): PieceDrawing {
 	const stitch = outlineFlatten(piece.outline, DRAW_TOLERANCE_MM);
 	const bbox = pathBoundingBox(piece.outline);
-	const cut = piece.seamAllowance ? [outlineFlatten(piece.seamAllowance.cutLine, DRAW_TOLERANCE_MM)] : cutLine(stitch);
+	const cut = piece.seamAllowance ? [outlineFlatten(piece.seamAllowance.cutLine, DRAW_TOLERANCE_MM)] : [];
 	const outerBox = cut.length ? pointsBoundingBox(cut.flat()) : bbox;
 	const apexOf = new Map(piece.apexes.map((a) => [a.id, a.point]));
 	const marks: Vec[][] = notchMarks(piece);
@@ -143,7 +129,6 @@ function buildDrawing(piece: Piece): PieceDrawing {
 		outerBox,
 		stitch,
 		cut,
-		cutIsReal: piece.seamAllowance !== null,
 		internal,
 		marks,
 		dotted,

@@ -81,11 +81,11 @@ export function paintPiece(ctx: CanvasRenderingContext2D, d: PieceDrawing, look:
 	ctx.globalAlpha = look === 'ghost' ? 0.22 : 1;
 	if (look !== 'ghost') {
 		ctx.fillStyle = PALETTE.pieceFill;
-		ctx.fill((showCut || d.cutIsReal) && d.cut.length ? p.cut : p.stitch, 'nonzero');
+		ctx.fill(showCut && d.cut.length ? p.cut : p.stitch, 'nonzero');
 	}
-	// cut line: solid
+	// cut line: solid, only where the piece has a seam allowance (a net piece has none to draw)
 	ctx.strokeStyle = colour;
-	if ((showCut || d.cutIsReal) && d.cut.length) {
+	if (showCut && d.cut.length) {
 		ctx.lineWidth = 1.4 * px;
 		ctx.setLineDash([]);
 		ctx.stroke(p.cut);
