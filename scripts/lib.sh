@@ -9,6 +9,15 @@ mkdir -p "$RUN_DIR"
 say() { printf '\033[1m[dartelier]\033[0m %s\n' "$*"; }
 die() { printf '\033[31m[dartelier] %s\033[0m\n' "$*" >&2; exit 1; }
 
+# Runs a command with all its output in a log file: on success nothing reaches the terminal, on
+# failure the end of the log does. Usage: quietly <log file> <what, for the messages> <command…>
+quietly() {
+	local log="$1" what="$2"; shift 2
+	if "$@" >"$log" 2>&1; then return 0; fi
+	tail -n 40 "$log" >&2
+	die "$what failed; the whole output is in ${log#"$ROOT/"}"
+}
+
 is_root() { [ "$(id -u)" = "0" ]; }
 
 apt_install() {
@@ -26,8 +35,8 @@ apt_install() {
 ensure_node_modules() {
 	local stamp="$ROOT/node_modules/.dartelier-lock-stamp"
 	if [ ! -f "$stamp" ] || ! cmp -s "$ROOT/package-lock.json" "$stamp"; then
-		say "installing npm packages from package-lock.json"
-		(cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+		say "installing npm packages from package-lock.json (log: .run/npm-ci.log)"
+		(cd "$ROOT" && quietly "$RUN_DIR/npm-ci.log" "npm ci" npm ci --no-audit --no-fund --loglevel=error)
 		cp "$ROOT/package-lock.json" "$stamp"
 	fi
 }

@@ -1,23 +1,34 @@
 #!/usr/bin/env bash
 # npm start: install what is missing, start PostgreSQL, migrate, seed the demo studio, build, serve.
+# The terminal gets what a user needs (where the app is, the demo sign-in, what else runs); the tools'
+# own output (npm, migrations, the build's warnings about dependencies) goes to log files under .run/.
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 
 APP_PORT="${PORT:-4173}"
 MAIL_SMTP_PORT="${MAIL_DEV_SMTP_PORT:-2526}"
 MAIL_HTTP_PORT="${MAIL_DEV_HTTP_PORT:-4174}"
+# Which of the project's clusters to use: dev (the start script's own test uses scratch).
+CLUSTER="${DARTELIER_START_CLUSTER:-dev}"
+# The build command (the start script's own test puts a stand-in here).
+BUILD_CMD="${DARTELIER_START_BUILD:-npx vite build --logLevel warn}"
 
 ensure_node_modules
-pg_start dev
-npx tsx scripts/migrate.ts
-npx tsx scripts/seed.ts
+pg_start "$CLUSTER"
+quietly "$RUN_DIR/migrate.log" "migrating the database" npx tsx scripts/migrate.ts
+say "database migrated (log: .run/migrate.log)"
+quietly "$RUN_DIR/seed.log" "seeding the demo studio" npx tsx scripts/seed.ts
+say "$(grep -o 'demo studio [a-z ]*' "$RUN_DIR/seed.log" | head -n 1 || echo 'demo studio seeded')"
 
 # Build when anything the build depends on is newer than the last build.
 stamp="$ROOT/build/.dartelier-built"
 if [ ! -f "$stamp" ] || [ -n "$(find src static migrations package-lock.json svelte.config.js vite.config.ts tailwind.config.ts -newer "$stamp" -print -quit 2>/dev/null)" ]; then
-	say "building the app"
-	npx vite build --logLevel warn
-	touch "$stamp"
+	say "building the app (about a minute; the build's own output: .run/build.log)"
+	# shellcheck disable=SC2086 # the command is words on purpose
+	quietly "$RUN_DIR/build.log" "the build" $BUILD_CMD
+	mkdir -p "$ROOT/build" && touch "$stamp"
+else
+	say "the app is built and up to date"
 fi
 
 cleanup() {
@@ -33,22 +44,38 @@ MAIL_PID=$!
 export HOST=127.0.0.1 PORT="$APP_PORT" ORIGIN="${ORIGIN:-http://127.0.0.1:$APP_PORT}"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT"
 export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-8M}"
+# The app's own messages (errors) stay in the terminal, after the summary below.
 node build &
 APP_PID=$!
+# Say they run once they answer.
+answers() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+for _ in $(seq 1 600); do
+	kill -0 "$APP_PID" 2>/dev/null || die "the app stopped at once; see the lines above"
+	kill -0 "$MAIL_PID" 2>/dev/null || die "the dev inbox stopped at once; see .run/mail-dev.log"
+	answers "$APP_PORT" && answers "$MAIL_HTTP_PORT" && break
+	sleep 0.1
+done
+
+# The demo sign-in, read from the seed's own data so that it cannot drift.
+DEMO_USERS=$(node -e '
+const d = JSON.parse(require("node:fs").readFileSync("fixtures/demo-studio.json", "utf8"));
+const roles = { owner: "owner", patterncutter: "pattern cutter", designer: "designer", sampleroom: "sample room" };
+console.log(`  Demo studio "${d.studio}", one user per role, password for each: ${d.password}`);
+for (const u of d.users) console.log(`    ${(roles[u.role] ?? u.role).padEnd(16)}${u.email}`);
+')
 
 cat <<MSG
 
-  Dartelier is running:   http://127.0.0.1:$APP_PORT
-  Dev inbox (e-mails):    http://127.0.0.1:$MAIL_HTTP_PORT
-  PostgreSQL (dev):       127.0.0.1:$PG_PORT, database $PG_DB
+  Dartelier is running:   http://127.0.0.1:$APP_PORT   (sign in there)
 
-  Demo studio "Linden Row Studio", password for every demo user: linden-demo-2026
-    owner          ines.owner@linden-row.example
-    patterncutter  tomas.cutter@linden-row.example
-    designer       aya.designer@linden-row.example
-    sampleroom     rui.sample@linden-row.example
+$DEMO_USERS
 
-  Ctrl-C stops the app. The database keeps running: stop it with  npm run db:stop
+  Also running:
+$(printf '    %-22s%s\n' "Dev inbox" "http://127.0.0.1:$MAIL_HTTP_PORT   (invitation and password e-mails)")
+$(printf '    %-22s%s\n' "PostgreSQL ($PG_NAME)" "127.0.0.1:$PG_PORT, database $PG_DB")
+  Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log)
+
+  Ctrl-C stops the app and the inbox. The database keeps running: npm run db:stop stops it.
 
 MSG
 wait "$APP_PID"
