@@ -1,5 +1,5 @@
 import type { Outline, Segment, Vec } from '../kernel';
-import { vecAdd, vecDistance, vecLerp, vecNormalize, vecScale, vecSub } from '../kernel';
+import { vecAdd, vecDistance, vecLerp, vecScale, vecSub } from '../kernel';
 import { apexById, pleatWedgeSegmentRange } from '../piece';
 import type { Piece, Pleat } from '../piece-schema';
 
@@ -68,9 +68,4 @@ export function outlinePleatsAcross(piece: Piece): Outline {
 		if (!drop.has(i)) segments.push(piece.outline.segments[i]);
 	}
 	return { segments };
-}
-
-/** Unit direction from the seam into the piece along a pleat's fold line. */
-export function pleatInward(pleat: Pleat): Vec {
-	return vecNormalize(vecSub(pleat.foldLine.to, pleat.foldLine.from));
 }

@@ -1,6 +1,8 @@
-import type { Outline, Path, Segment, Vec } from '../kernel';
-import { pathBoundingBox, vecAdd, vecLength, vecNormalize, vecPerp, vecScale, vecSub } from '../kernel';
+import type { BoundingBox, Outline, Path, Segment, Vec } from '../kernel';
+import { boundingBoxUnion, pathBoundingBox, vecAdd, vecNormalize, vecPerp, vecScale, vecSub } from '../kernel';
 import type { Piece } from '../piece-schema';
+import { labelPlacement, type LabelPlacement } from './label-place';
+import { outlinePleatsAcross, pleatMarks } from './pleat-marks';
 
 /** What the labels of an exported piece say besides the geometry. */
 export interface SvgExportMeta {
@@ -49,13 +51,55 @@ export function cutInstructionText(cut: Piece['cut']): string {
 	return 'cut 1, right side up';
 }
 
-/** The layers of one piece, as SVG groups in piece coordinates (mm). */
-function pieceLayers(piece: Piece, meta: SvgExportMeta, labelAt: Vec): string {
+/** The text block printed on a piece. */
+function labelLines(piece: Piece, meta: SvgExportMeta): string[] {
+	return [
+		meta.styleCode ? `${meta.styleName} · ${meta.styleCode}` : meta.styleName,
+		piece.name,
+		meta.sizeLabel,
+		cutInstructionText(piece.cut),
+		piece.seamAllowance
+			? `seam allowance included (${piece.seamAllowance.defaultWidthMm} mm unless marked)`
+			: 'net pattern: no seam allowance',
+		`version ${meta.versionNumber}`
+	];
+}
+
+/** A piece laid out for export: its label's place and the page area it needs (cut line and label). */
+interface PieceLayout {
+	readonly lines: string[];
+	readonly label: LabelPlacement;
+	readonly extent: BoundingBox;
+}
+
+function pieceLayout(piece: Piece, meta: SvgExportMeta): PieceLayout {
+	const lines = labelLines(piece, meta);
+	const label = labelPlacement(piece, lines);
+	const extent = boundingBoxUnion(pathBoundingBox(piece.seamAllowance?.cutLine ?? piece.outline), label.box);
+	return { lines, label, extent };
+}
+
+function labelGroup(lines: readonly string[], l: LabelPlacement): string {
+	const first = l.fontSizeMm * 0.85;
+	const texts = (x: number, y: number) =>
+		lines.map((t, i) => `<text x="${n(x)}" y="${n(y + first + i * l.lineHeightMm)}">${esc(t)}</text>`).join('');
+	const font = `font-family="Source Sans 3, sans-serif" font-size="${n(l.fontSizeMm)}" fill="#1F2A37"`;
+	if (l.turned) return `<g id="labels" ${font} transform="translate(${n(l.at.x)} ${n(l.at.y)}) rotate(-90)">${texts(0, 0)}</g>`;
+	return `<g id="labels" ${font}>${texts(l.at.x, l.at.y)}</g>`;
+}
+
+/**
+ * The layers of one piece, as SVG groups in piece coordinates (mm). Pleats are marked as a cutter
+ * marks them: the seam runs across the pleat, and the fold line, placement line and fold arrow are
+ * drawn from the seam over the pleat's stitched length (pleat-marks.ts), not down to the apex.
+ */
+function pieceLayers(piece: Piece, layout: PieceLayout): string {
 	const layers: string[] = [];
-	const cut = piece.seamAllowance?.cutLine ?? piece.outline;
+	const stitching = outlinePleatsAcross(piece);
+	const cut = piece.seamAllowance?.cutLine ?? stitching;
 	layers.push(`<g id="cut-line" fill="none" stroke="#1F2A37" stroke-width="0.5"><path d="${svgPathData(cut, true)}"/></g>`);
 	layers.push(
-		`<g id="stitching-line" fill="none" stroke="#1F2A37" stroke-width="0.3" stroke-dasharray="2 1.5"><path d="${svgPathData(piece.outline, true)}"/></g>`
+		`<g id="stitching-line" fill="none" stroke="#1F2A37" stroke-width="0.3" stroke-dasharray="2 1.5"><path d="${svgPathData(stitching, true)}"/></g>`
 	);
 	const dartLines: string[] = [];
 	for (const d of piece.darts) {
@@ -65,8 +109,10 @@ function pieceLayers(piece: Piece, meta: SvgExportMeta, labelAt: Vec): string {
 		dartLines.push(line(d.leg1End, tip), line(d.leg2End, tip));
 	}
 	for (const p of piece.pleats) {
-		dartLines.push(line(p.foldLine.from, p.foldLine.to), line(p.placementLine.from, p.placementLine.to, ' stroke-dasharray="3 1.5"'));
-		dartLines.push(line(p.foldArrow.from, p.foldArrow.to), arrowHead(p.foldArrow.to, p.foldArrow.from, 3));
+		const m = pleatMarks(p);
+		dartLines.push(
+			`<g class="pleat" data-pleat="${esc(p.id)}">${line(m.fold[0], m.fold[1], ' class="fold"')}${line(m.placement[0], m.placement[1], ' class="placement" stroke-dasharray="3 1.5"')}${line(m.arrow.from, m.arrow.to, ' class="fold-arrow"')}${arrowHead(m.arrow.to, m.arrow.from, 2.5)}</g>`
+		);
 	}
 	layers.push(`<g id="darts-pleats" fill="none" stroke="#1F2A37" stroke-width="0.3">${dartLines.join('')}</g>`);
 	const notches = piece.notches.map((k) => {
@@ -85,32 +131,8 @@ function pieceLayers(piece: Piece, meta: SvgExportMeta, labelAt: Vec): string {
 			`<g id="fold-line" fill="none" stroke="#1F2A37" stroke-width="0.4" stroke-dasharray="6 2 1 2">${line(piece.foldLine.from, piece.foldLine.to)}</g>`
 		);
 	}
-	const texts = [
-		meta.styleCode ? `${meta.styleName} · ${meta.styleCode}` : meta.styleName,
-		piece.name,
-		meta.sizeLabel,
-		cutInstructionText(piece.cut),
-		piece.seamAllowance
-			? `seam allowance included (${piece.seamAllowance.defaultWidthMm} mm unless marked)`
-			: 'net pattern: no seam allowance',
-		`version ${meta.versionNumber}`
-	];
-	const label = texts
-		.map((t, i) => `<text x="${n(labelAt.x)}" y="${n(labelAt.y + i * 7)}">${esc(t)}</text>`)
-		.join('');
-	layers.push(`<g id="labels" font-family="Source Sans 3, sans-serif" font-size="5" fill="#1F2A37">${label}</g>`);
+	layers.push(labelGroup(layout.lines, layout.label));
 	return layers.join('\n');
-}
-
-function labelPoint(piece: Piece): Vec {
-	if (piece.grainline) {
-		const g = piece.grainline;
-		const mid = vecScale(vecAdd(g.from, g.to), 0.5);
-		const len = vecLength(vecSub(g.to, g.from));
-		return vecAdd(mid, vecScale(vecPerp(vecNormalize(vecSub(g.to, g.from))), Math.min(25, len / 4)));
-	}
-	const b = pathBoundingBox(piece.outline);
-	return { x: (b.minX + b.maxX) / 2 - 20, y: (b.minY + b.maxY) / 2 };
 }
 
 function svgDocument(widthMm: number, heightMm: number, viewX: number, viewY: number, body: string): string {
@@ -129,12 +151,13 @@ function testSquare(at: Vec): string {
 
 /** One piece at true scale: width/height in mm and a viewBox in mm, one group per layer. */
 export function pieceSvg(piece: Piece, meta: SvgExportMeta): string {
-	const b = pathBoundingBox(piece.seamAllowance?.cutLine ?? piece.outline);
+	const layout = pieceLayout(piece, meta);
+	const b = layout.extent;
 	const x = b.minX - SVG_MARGIN_MM;
 	const y = b.minY - SVG_MARGIN_MM;
 	const w = b.maxX - b.minX + 2 * SVG_MARGIN_MM + 60;
 	const h = Math.max(b.maxY - b.minY + 2 * SVG_MARGIN_MM, 80);
-	const body = `<g id="piece-${esc(piece.id)}">${pieceLayers(piece, meta, labelPoint(piece))}</g>\n${testSquare({ x: b.maxX + 10, y: b.minY })}`;
+	const body = `<g id="piece-${esc(piece.id)}">${pieceLayers(piece, layout)}</g>\n${testSquare({ x: b.maxX + 10, y: b.minY })}`;
 	return svgDocument(w, h, x, y, body);
 }
 
@@ -144,12 +167,11 @@ export function styleSvg(pieces: readonly { piece: Piece; meta: SvgExportMeta }[
 	let height = 80;
 	const groups: string[] = [];
 	for (const { piece, meta } of pieces) {
-		const b = pathBoundingBox(piece.seamAllowance?.cutLine ?? piece.outline);
+		const layout = pieceLayout(piece, meta);
+		const b = layout.extent;
 		const dx = cursor - b.minX;
 		const dy = -b.minY;
-		groups.push(
-			`<g id="piece-${esc(piece.id)}" transform="translate(${n(dx)} ${n(dy)})">${pieceLayers(piece, meta, labelPoint(piece))}</g>`
-		);
+		groups.push(`<g id="piece-${esc(piece.id)}" transform="translate(${n(dx)} ${n(dy)})">${pieceLayers(piece, layout)}</g>`);
 		cursor += b.maxX - b.minX + SVG_GAP_MM;
 		height = Math.max(height, b.maxY - b.minY);
 	}
