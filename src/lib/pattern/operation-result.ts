@@ -11,6 +11,7 @@ export type OperationErrorCode =
 	| 'target_off_outline'
 	| 'target_inside_dart'
 	| 'target_on_wedge'
+	| 'target_on_fold'
 	| 'targets_coincide'
 	| 'shares_do_not_sum'
 	| 'share_not_positive'

@@ -24,12 +24,15 @@ export const rotationMotion = (center: Vec, angleRad: number): RigidMotion => ({
  * Carry the markings of a piece along with the rigid motion of the part they sit on.
  * `motionForPoint(p)` gives the motion of the part that holds p.
  * A marking made of several points moves as one (by the motion at its first or middle point).
+ * With `grainlineKeepsDirection` the grainline only follows its part's displacement and never turns:
+ * it stays parallel to the fold or centre line it was drawn from (reference-values row 27, C).
  */
 export function carryMarkings(
 	piece: Piece,
 	motionForPoint: (p: Vec) => RigidMotion,
 	skipDartIds: ReadonlySet<string>,
-	fixedPoints: readonly Vec[] = []
+	fixedPoints: readonly Vec[] = [],
+	options: { grainlineKeepsDirection?: boolean } = {}
 ): Pick<Piece, 'apexes' | 'darts' | 'pleats' | 'notches' | 'grainline' | 'foldLine' | 'internalLines' | 'drillHoles' | 'labels'> {
 	type M = RigidMotion;
 	const rotationForPoint = motionForPoint;
@@ -76,7 +79,12 @@ export function carryMarkings(
 	const notches = piece.notches.map((nt) => ({ ...nt, at: rp(nt.at, rotationForPoint(nt.at)) }));
 	const grainline = piece.grainline
 		? (() => {
-				const a = rotationForPoint(mid(piece.grainline.from, piece.grainline.to));
+				const m = mid(piece.grainline.from, piece.grainline.to);
+				let a = rotationForPoint(m);
+				if (options.grainlineKeepsDirection && a.angleRad !== 0) {
+					const moved = motionApply(a, m);
+					a = { center: m, angleRad: 0, offset: { x: moved.x - m.x, y: moved.y - m.y } };
+				}
 				return { ...piece.grainline, from: rp(piece.grainline.from, a), to: rp(piece.grainline.to, a) };
 			})()
 		: null;

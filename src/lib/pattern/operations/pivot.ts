@@ -4,7 +4,7 @@ import { fmtDeg, fmtMm, refuse, succeed, type OperationResult } from '../operati
 import { apexById, dartById, wedgeGeometry } from '../piece';
 import { vecSchema, type Dart, type Piece } from '../piece-schema';
 import { carryMarkings, rotationMotion } from './carry-markings';
-import { openWedges } from './open-wedges';
+import { openWedgesKeepingStill } from './still-side';
 import { reapplyPullBack } from './pull-back';
 
 export const pivotParamsSchema = z.object({
@@ -26,10 +26,12 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 	const apex = apexById(piece, dart.apexId);
 	if (!apex) return refuse('unknown_apex', `Dart "${dart.id}" refers to apex "${dart.apexId}", which is not on the piece.`);
 	const g = wedgeGeometry(apex.point, dart.leg1End, dart.leg2End);
-	const r = openWedges(piece, dart, [{ at: params.to, angleRad: g.angleRad }], 0);
+	const r = openWedgesKeepingStill(piece, dart, [{ at: params.to, angleRad: g.angleRad }], 0, () => `Dart "${dart.id}"`);
 	if (!r.ok) return refuse(r.code, r.message);
 	const o = r.value.openings[0];
-	const carried = carryMarkings(piece, (p) => rotationMotion(apex.point, r.value.rotationForPoint(p)), new Set([dart.id]), [apex.point]);
+	const carried = carryMarkings(piece, (p) => rotationMotion(apex.point, r.value.rotationForPoint(p)), new Set([dart.id]), [apex.point], {
+		grainlineKeepsDirection: true
+	});
 	const newId = params.newDartId ?? dart.id;
 	const moved: Dart = {
 		id: newId,
@@ -52,6 +54,7 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 		ledgerEntry({ apexId: apex.id, kind: 'dart', refId: newId, label: `dart "${newId}" opened at the new point`, angleRad: ng.angleRad })
 	];
 	const notes = [...r.value.notes];
+	if (r.still) notes.push(`The side that holds ${r.still.name} stayed still; the other side turned.`);
 	if (dart.cap || dart.pressToward) notes.push('Pressing direction and cap were cleared: set them again for the new position.');
 	if (dart.pullBack && !moved.pullBack) notes.push(`The ${fmtMm(dart.pullBack.clearanceMm)} clearance no longer fits the new dart and was removed.`);
 	return succeed(next, entries, {

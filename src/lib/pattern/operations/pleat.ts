@@ -5,7 +5,8 @@ import { fmtDeg, fmtMm, refuse, succeed, type OperationResult } from '../operati
 import { apexById, dartById, wedgeGeometry } from '../piece';
 import { legSideSchema, pleatKindSchema, vecSchema, type LegSide, type Piece, type Pleat } from '../piece-schema';
 import { carryMarkings, rotationMotion } from './carry-markings';
-import { openWedges, type OpenedWedge } from './open-wedges';
+import { type OpenedWedge } from './open-wedges';
+import { openWedgesKeepingStill } from './still-side';
 import { uniqueId } from './share';
 
 /** Largest radius for substitute pivots round the apex (reference-values row 13, P: ≤ 25.4 mm). */
@@ -111,14 +112,15 @@ export function pleat(piece: Piece, input: PleatParams): OperationResult {
 		}
 	}
 
-	const r = openWedges(
+	const r = openWedgesKeepingStill(
 		piece,
 		dart,
 		params.at.map((at, i) => ({ at, angleRad: angles[i], pivot: pivots[i] })),
-		0
+		0,
+		(i) => `${params.kind === 'tuck' ? 'Tuck' : 'Pleat'} ${i + 1}`
 	);
 	if (!r.ok) return refuse(r.code, r.message);
-	const carried = carryMarkings(piece, (p) => rotationMotion(P, r.value.rotationForPoint(p)), new Set([dart.id]), [P]);
+	const carried = carryMarkings(piece, (p) => rotationMotion(P, r.value.rotationForPoint(p)), new Set([dart.id]), [P], { grainlineKeepsDirection: true });
 	const ids = new Set(piece.pleats.map((p) => p.id));
 	const notes = [...r.value.notes];
 	const pleats: Pleat[] = [];

@@ -11,7 +11,8 @@ const side = (f: number) => vecLerp({ x: 235, y: 230 }, { x: 225, y: 440 }, f);
 
 describe('share', () => {
 	it('splits the shoulder dart into side and centre-front darts; parts sum to the whole', () => {
-		const block = frontBodiceBlock();
+		// centre front as a seam (cut as a pair): a dart may open there, never on a fold
+		const block = { ...frontBodiceBlock(), foldLine: null, cut: 'pair' as const };
 		const r = share(block, {
 			dartId: 'shoulder-dart',
 			parts: [

@@ -4,7 +4,7 @@ import { fmtDeg, fmtMm, refuse, succeed, type OperationResult } from '../operati
 import { apexById, dartById, wedgeGeometry } from '../piece';
 import { vecSchema, type Dart, type Piece } from '../piece-schema';
 import { carryMarkings, rotationMotion } from './carry-markings';
-import { openWedges } from './open-wedges';
+import { openWedgesKeepingStill } from './still-side';
 import { reapplyPullBack } from './pull-back';
 
 const finite = () => z.number().refine((n) => Number.isFinite(n), { message: 'must be a finite number' });
@@ -79,14 +79,17 @@ export function share(piece: Piece, params: ShareParams): OperationResult {
 	if (!resolved.ok) return refuse(resolved.code, `Dart "${dart.id}": ${resolved.message}`);
 	const partAngles = resolved.anglesRad.slice(0, params.parts.length);
 	const keepAngle = params.keep ? resolved.anglesRad[params.parts.length] : 0;
-	const r = openWedges(
+	const r = openWedgesKeepingStill(
 		piece,
 		dart,
 		params.parts.map((p, i) => ({ at: p.to, angleRad: partAngles[i] })),
-		keepAngle
+		keepAngle,
+		(i) => `Part ${i + 1} of dart "${dart.id}"`
 	);
 	if (!r.ok) return refuse(r.code, r.message);
-	const carried = carryMarkings(piece, (p) => rotationMotion(apex.point, r.value.rotationForPoint(p)), new Set([dart.id]), [apex.point]);
+	const carried = carryMarkings(piece, (p) => rotationMotion(apex.point, r.value.rotationForPoint(p)), new Set([dart.id]), [apex.point], {
+		grainlineKeepsDirection: true
+	});
 	const ids = new Set(piece.darts.map((d) => d.id));
 	if (!r.value.remainingDart) ids.delete(dart.id);
 	const newDarts: Dart[] = [];

@@ -23,6 +23,7 @@ import { fmtDeg, fmtMm, refuse, succeed, type OperationResult } from '../operati
 import { vecSchema, type Piece } from '../piece-schema';
 import { carryMarkings, IDENTITY_MOTION, motionApply, type RigidMotion } from './carry-markings';
 import { TARGET_SNAP_TOLERANCE_MM, wedgeLegSegments } from './open-wedges';
+import { foldRefusal, pointOnFold } from './still-side';
 
 const finite = () => z.number().refine((n) => Number.isFinite(n), { message: 'must be a finite number' });
 
@@ -93,6 +94,13 @@ export function spread(piece: Piece, params: SpreadParams): OperationResult {
 		if (typeof from === 'string') return refuse('slash_off_outline', from);
 		const to = locate(s.to, params.mode === 'hinged' ? 'hinge' : 'far', k);
 		if (typeof to === 'string') return refuse('slash_off_outline', to);
+		// a slash end on the fold would open it (or, at a hinge, bend it): the fold must stay one straight edge
+		for (const end of [from, to]) {
+			if (pointOnFold(piece, end.point)) {
+				const f = foldRefusal(`Slash ${k + 1}`, end.point);
+				return refuse(f.code, f.message);
+			}
+		}
 		if (legs.has(from.i) || (from.t === 0 && legs.has((from.i - 1 + n) % n))) {
 			return refuse('target_on_wedge', `Slash ${k + 1} starts on ${legs.get(from.i) ?? legs.get((from.i - 1 + n) % n)}; start it on a seam.`);
 		}
