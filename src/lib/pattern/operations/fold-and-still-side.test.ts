@@ -83,6 +83,24 @@ describe('pivoting keeps the side that holds the fold line (else the grainline) 
 		for (const y of [100, 250, 450]) expect(outlineNearestLocation(r.piece.outline, { x: 0, y }).distance).toBeLessThan(1e-9);
 	});
 
+	it('without a fold line, the centre front marked by its label stays still, before the grainline', () => {
+		const block: Piece = {
+			...frontBodiceBlock(),
+			foldLine: null,
+			cut: 'pair',
+			labels: [{ id: 'centre', text: 'CF', at: { x: 8, y: 270 }, angleRad: -Math.PI / 2 }],
+			grainline: { from: { x: 180, y: 140 }, to: { x: 180, y: 200 }, arrowheads: 'both' }
+		};
+		const to = onOutline(block, necklinePoint);
+		const r = pivot(block, { dartId: 'shoulder-dart', to });
+		if (!r.ok) throw new Error(r.error.message);
+		for (const y of [100, 250, 450]) expect(outlineNearestLocation(r.piece.outline, { x: 0, y }).distance).toBeLessThan(1e-9);
+		expect(r.report.notes.join(' ')).toMatch(/centre front stayed still/);
+		const g0 = block.grainline!;
+		const g1 = r.piece.grainline!;
+		expect(direction(g1.from, g1.to)).toBeCloseTo(direction(g0.from, g0.to), 12);
+	});
+
 	it('a grainline on the turning side moves with it but keeps its direction (parallel to the fold)', () => {
 		const block: Piece = { ...frontBodiceBlock(), grainline: { from: { x: 180, y: 140 }, to: { x: 180, y: 200 }, arrowheads: 'both' } };
 		const r = pivot(block, { dartId: 'shoulder-dart', to: sideSeamPoint });

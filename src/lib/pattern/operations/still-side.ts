@@ -1,4 +1,4 @@
-import { pointRotateAbout, segmentRotateAbout, vecDistance, vecDot, vecSub, type Vec } from '../kernel';
+import { outlineNearestPoint, pointRotateAbout, segmentRotateAbout, vecDistance, vecDot, vecSub, type Vec } from '../kernel';
 import { apexById } from '../piece';
 import type { OperationErrorCode } from '../operation-result';
 import type { Dart, LineMark, Piece } from '../piece-schema';
@@ -9,13 +9,13 @@ import { openWedges, TARGET_SNAP_TOLERANCE_MM, type OpenWedgesOutput, type OpenW
  *
  * Trade rule (trade-primer §8 and §1): a place-on-fold edge is straight and on grain, and the cut piece is
  * the pattern plus its reflection across it. So no dart, pleat or slash may open on the fold, and when a
- * dart is pivoted the side that holds the fold line stays still; failing a fold, the side that holds the
- * grainline (which is drawn parallel to the centre line, reference-values row 27, C) stays still. The
- * other side turns. Pivoting about the apex therefore never moves, nor slants, the fold line.
+ * dart is pivoted the side that holds the fold line stays still; failing a fold, the side of the centre
+ * front (or back, marked by its label "CF" or "CB"); failing that, the side that holds the grainline (drawn
+ * parallel to the centre line, reference-values row 27, C). The other side turns. Pivoting about the apex therefore never moves, nor slants, the fold line.
  */
 
 export interface StillAnchor {
-	readonly kind: 'fold' | 'grainline';
+	readonly kind: 'fold' | 'centre' | 'grainline';
 	/** A point of the marking; the part of the piece that holds it must not turn. */
 	readonly point: Vec;
 	/** How a message names it. */
@@ -24,9 +24,25 @@ export interface StillAnchor {
 
 const mid = (l: LineMark): Vec => ({ x: (l.from.x + l.to.x) / 2, y: (l.from.y + l.to.y) / 2 });
 
-/** The marking whose side stays still: the fold line, else the grainline; null when the piece has neither. */
+/** A label that marks the centre line ("CF", "CB", "centre front"…), as the drafts place beside it. */
+export const CENTRE_LABEL = /^\s*(cf|cb|cent(?:re|er) (?:front|back))\s*$/i;
+
+/** The piece's centre front or back, where a label marks it: the nearest point of the outline to the label. */
+export function centreMark(piece: Piece): { point: Vec; name: string } | null {
+	const label = piece.labels.find((l) => CENTRE_LABEL.test(l.text));
+	if (!label) return null;
+	const back = /^\s*(cb|cent(?:re|er) back)\s*$/i.test(label.text);
+	return { point: outlineNearestPoint(piece.outline, label.at).point, name: back ? 'the centre back' : 'the centre front' };
+}
+
+/**
+ * The marking whose side stays still: the fold line, else the centre front (or back), else the grainline;
+ * null when the piece has none of them.
+ */
 export function stillAnchor(piece: Piece): StillAnchor | null {
 	if (piece.foldLine) return { kind: 'fold', point: mid(piece.foldLine), name: 'the fold line' };
+	const centre = centreMark(piece);
+	if (centre) return { kind: 'centre', ...centre };
 	if (piece.grainline) return { kind: 'grainline', point: mid(piece.grainline), name: 'the grainline' };
 	return null;
 }
