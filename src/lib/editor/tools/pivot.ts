@@ -2,6 +2,7 @@ import { vecDistance } from '$lib/geometry';
 import { emptyPreview, type ToolDef } from './types';
 import { dartApex, deg, mm, pickDart, stepPreview, toolPiece } from './common';
 import { dartNear } from '../hit';
+import { seamsOf, seamTargetText } from '../pivot-target';
 
 /** Pivot: close a dart and open it at a new point on the outline (drag the opening along the outline). */
 export const pivotTool: ToolDef = {
@@ -12,7 +13,7 @@ export const pivotTool: ToolDef = {
 	edits: true,
 	hint(s) {
 		if (!s.input.dartId) return 'Click a dart to pivot (or choose it in the form).';
-		if (!s.input.target) return 'Drag from the dart along the outline to the new opening point, or click a point on the outline.';
+		if (!s.input.target) return 'Drag from the dart along the outline to the new opening point, click a point on a seam, or choose the seam and the distance in the form.';
 		return 'Release, press Enter or Apply to pivot; Escape cancels.';
 	},
 	down(s, p) {
@@ -72,6 +73,7 @@ export const pivotTool: ToolDef = {
 			{ label: 'Intake after', value: mm(s, v.newIntakeMm) },
 			{ label: 'Leg before', value: mm(s, v.oldLegLengthMm) },
 			{ label: 'Leg after', value: mm(s, v.newLegLengthMm) },
+			{ label: 'New opening', value: seamTargetText(piece, seamsOf(piece), t, (v) => mm(s, v)) },
 			{ label: 'Apex to new point', value: mm(s, vecDistance(w.apex, t)) }
 		]);
 	}
