@@ -94,7 +94,18 @@ describe('client measurement sets through the API', () => {
 		expect(e.fields.clientRef?.[0]).toMatch(/reference code/);
 		const r2 = await cutter.api('POST', base(), { ...clientBody, values: { bust: 'ninety' } });
 		expect(r2.status).toBe(400);
-		expect((await r2.json()).error.fields['values.bust'][0]).toMatch(/not a length/);
+		expect((await r2.json()).error.fields['values.bust'][0]).toMatch(/is not a number/);
+	});
+
+	it('tells negative, zero and non-numbers apart, typed or sent as numbers', async () => {
+		const r = await cutter.api('POST', base(), { ...clientBody, values: { bust: '92', waist: '-70', hip: '0', neck_base: 'x', back_length: -410, armhole_depth: 0 } });
+		expect(r.status).toBe(400);
+		const f = (await r.json()).error.fields;
+		expect(f['values.waist'][0]).toMatch(/cannot be negative/);
+		expect(f['values.hip'][0]).toMatch(/is zero/);
+		expect(f['values.neck_base'][0]).toMatch(/is not a number/);
+		expect(f['values.back_length'][0]).toMatch(/cannot be negative/);
+		expect(f['values.armhole_depth'][0]).toMatch(/is zero/);
 	});
 
 	it('answers 422 with clear messages for implausible values; warnings can be confirmed', async () => {
@@ -104,10 +115,17 @@ describe('client measurement sets through the API', () => {
 		expect(e.code).toBe('implausible');
 		expect(e.fields['values.underbust'][0]).toMatch(/larger than bust.*swapped/);
 
-		// 925 typed into a cm set: far outside the adult range → a warning that refuses until confirmed
+		// 925 typed into a cm set (9.25 m): no human body measures that → an error that cannot be confirmed
 		const range = await cutter.api('POST', base(), { ...clientBody, values: { bust: '925' } });
 		expect(range.status).toBe(422);
-		expect((await range.json()).error.message).toMatch(/Check the unit/);
+		expect((await range.json()).error.message).toMatch(/larger than any human body measures.*Check the value and its unit/);
+		const waist = await cutter.api('POST', base(), { ...clientBody, values: { bust: '92', waist: '5000' }, acceptWarnings: true });
+		expect(waist.status).toBe(422);
+		expect((await waist.json()).error.fields['values.waist'][0]).toMatch(/^Waist girth is 5000\.0 cm: larger than any human body measures/);
+		// 190 cm bust: unusual but human → a warning that refuses until confirmed
+		const unusual = await cutter.api('POST', base(), { ...clientBody, values: { bust: '190' } });
+		expect(unusual.status).toBe(422);
+		expect((await unusual.json()).error.message).toMatch(/outside the usual adult range/);
 		const confirmed = await cutter.api('POST', base(), { ...clientBody, name: 'Unusual', values: { bust: '135' }, acceptWarnings: true });
 		expect(confirmed.status).toBe(201);
 		const stillWrong = await cutter.api('POST', base(), { ...clientBody, values: { bust: '76', underbust: '92.5' }, acceptWarnings: true });
@@ -225,6 +243,25 @@ describe('drafting a block into a new style', () => {
 		}
 		const front = overview.pieces.find((p: { name: string }) => p.name === 'Front');
 		expect(front.cut).toBe('pair');
+	});
+
+	it('a draft that fails names the measurement that made it fail', async () => {
+		// a waist of 300 cm with a 90 cm bust: a human size, confirmed, but no bodice block can be drawn from it
+		const made = await cutter.api('POST', base(), { ...clientBody, name: 'Odd waist', values: { bust: '90', waist: '300' }, acceptWarnings: true });
+		expect(made.status).toBe(201);
+		const set = (await made.json()).measurementSet;
+		const r = await cutter.post(`/studios/${studioId}/styles/new`, { measurementSetId: set.id, name: 'Odd', easeBust: '50', easeWaist: '30' });
+		expect(r.status).toBe(422);
+		expect(await r.text()).toContain('The draft fails because of the waist girth (300.0 cm)');
+		// a set saved before such values were refused: drafting names the value no body measures
+		const old = await cutter.api('POST', base(), { ...clientBody, name: 'Saved before the rule' });
+		const oldId = (await old.json()).measurementSet.id as string;
+		const row = await testDb().selectFrom('measurement_sets').select('values').where('id', '=', oldId).executeTakeFirstOrThrow();
+		const values = (row.values as { id: string; valueMm: number }[]).map((v) => (v.id === 'waist' ? { ...v, valueMm: 50_000 } : v));
+		await testDb().updateTable('measurement_sets').set({ values: JSON.stringify(values) }).where('id', '=', oldId).execute();
+		const refused = await cutter.post(`/studios/${studioId}/styles/new`, { measurementSetId: oldId, name: 'Huge', easeBust: '50', easeWaist: '30' });
+		expect(refused.status).toBe(422);
+		expect(await refused.text()).toContain('Waist girth is 5000.0 cm: larger than any human body measures');
 	});
 
 	it('drafts from a chart too, refuses a designer, and answers 400 without a set', async () => {

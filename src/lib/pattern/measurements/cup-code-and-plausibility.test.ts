@@ -29,8 +29,9 @@ describe('plausibility checks', () => {
 		const p = measurementProblems({ waist: 1100, hip: 950 });
 		expect(p.some((i) => i.ids.includes('waist') && i.ids.includes('hip'))).toBe(true);
 	});
-	it('states the human range when a value is outside it (e.g. cm typed as mm)', () => {
-		const p = measurementProblems({ bust: 92 });
+	it('states the usual adult range when a value is outside it but still a human size (a warning)', () => {
+		const p = measurementProblems({ bust: 1900 });
+		expect(p[0].severity).toBe('warning');
 		expect(p[0].message).toMatch(/outside the usual adult range 60\.0 cm – 180\.0 cm/);
 	});
 	it('is quiet on a chart size', () => {

@@ -5,3 +5,4 @@ export * from './astm-d5585-chart';
 export * from './derived';
 export * from './cup-code';
 export * from './plausibility';
+export * from './length-field';

@@ -1,5 +1,7 @@
+import fc from 'fast-check';
+import Fraction from 'fraction.js';
 import { describe, expect, it } from 'vitest';
-import { inchesEighthsText, inchFractionParse, lengthParse, lengthText, mmFromInches } from './units';
+import { inchesEighthsText, inchFractionParse, lengthFieldText, lengthParse, lengthText, mmFromInches } from './units';
 
 describe('units', () => {
 	it('converts inches to mm exactly (1 in = 25.4 mm by definition)', () => {
@@ -34,5 +36,47 @@ describe('units', () => {
 		expect(lengthParse('86.7', 'cm')?.mm).toBeCloseTo(867, 9);
 		expect(lengthParse('tall')).toBeNull();
 		expect(lengthParse('')).toBeNull();
+	});
+});
+
+describe('what was typed is stored exactly, whatever unit it is shown in', () => {
+	it('92 cm shown in an inch form and back is still 920 mm, not 36 1/4 in (920.75 mm) nor 92.1 cm', () => {
+		const typed = lengthParse('92', 'cm')!.mm;
+		expect(typed).toBe(920);
+		const inInches = lengthFieldText(typed, 'in');
+		expect(inInches).toBe('92 cm'); // 920 mm is not a whole number of 64ths of an inch: it keeps its unit
+		expect(lengthParse(inInches, 'in')!.mm).toBe(920);
+		expect(lengthFieldText(lengthParse(inInches, 'in')!.mm, 'cm')).toBe('92');
+	});
+
+	it('cm decimals are read exactly (86.75 cm is 867.5 mm, not 867.4999…)', () => {
+		expect(lengthParse('4.35', 'cm')!.mm).toBe(43.5);
+		expect(lengthParse('86.75', 'cm')!.mm).toBe(867.5);
+		expect(lengthParse('0.07', 'cm')!.mm).toBe(0.7);
+	});
+
+	it('inch fractions are read as the double nearest the exact value (1 in = 25.4 mm exactly)', () => {
+		expect(lengthParse('36 1/4', 'in')!.mm).toBe(920.75);
+		expect(lengthParse('34 1/8', 'in')!.mm).toBe(866.775);
+	});
+
+	it('property: a value typed in any unit and shown in any other reads back as the same millimetres', () => {
+		const typed = fc.oneof(
+			fc.record({ unit: fc.constant('cm' as const), text: fc.integer({ min: 300, max: 20000 }).map((n) => (n / 100).toString()) }),
+			fc.record({ unit: fc.constant('mm' as const), text: fc.integer({ min: 300, max: 20000 }).map((n) => (n / 10).toString()) }),
+			fc.record({ unit: fc.constant('in' as const), text: fc.integer({ min: 80, max: 640 }).map((n) => new Fraction(n, 8).toFraction(true)) })
+		);
+		fc.assert(
+			fc.property(typed, fc.array(fc.constantFrom('mm', 'cm', 'in'), { minLength: 1, maxLength: 5 }), ({ unit, text }, switches) => {
+				const mm = lengthParse(text, unit)!.mm;
+				let shown = text;
+				let current: 'mm' | 'cm' | 'in' = unit;
+				for (const next of switches) {
+					shown = lengthFieldText(lengthParse(shown, current)!.mm, next as 'mm' | 'cm' | 'in');
+					current = next as 'mm' | 'cm' | 'in';
+				}
+				return lengthParse(shown, current)!.mm === mm;
+			})
+		);
 	});
 });

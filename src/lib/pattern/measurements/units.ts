@@ -14,9 +14,18 @@ export function inchesFromMm(mm: number): number {
 	return mm / MM_PER_INCH;
 }
 
-/** Exact inch value (a Fraction) to millimetres. */
+/** Exact inch value (a Fraction) to millimetres: the double nearest the exact value (1 in = 127/5 mm). */
 export function mmFromInchFraction(inches: Fraction): number {
-	return inches.valueOf() * MM_PER_INCH;
+	return inches.mul(127, 5).valueOf();
+}
+
+/** A decimal text ("86.75") times a power of ten, exactly: the digits are shifted, not multiplied. */
+function decimalShift(text: string, places: number): number {
+	const [int, frac = ''] = text.split('.');
+	const digits = int + frac;
+	const point = int.length + places;
+	const padded = point > digits.length ? digits.padEnd(point, '0') : digits;
+	return Number(`${padded.slice(0, point)}.${padded.slice(point) || '0'}`);
 }
 
 /** Inches rounded to the nearest eighth, as a mixed number: 34.1 → "34 1/8". */
@@ -86,6 +95,42 @@ export function lengthParse(text: string, defaultUnit: LengthUnit = 'mm'): Parse
 		return f ? { mm: mmFromInchFraction(f), unit } : null;
 	}
 	if (!/^\d+(\.\d+)?$/.test(t)) return null;
-	const n = Number(t);
-	return { mm: unit === 'cm' ? n * MM_PER_CM : n, unit };
+	return { mm: unit === 'cm' ? decimalShift(t, 1) : Number(t), unit };
+}
+
+/**
+ * A text in `unit` (no unit written) that reads back as exactly `mm`, or null when the unit cannot say it
+ * in a few digits (920 mm is not a whole number of 64ths of an inch). Inches are written in eighths where
+ * they can be, down to 64ths, else as a short decimal.
+ */
+export function lengthTextExact(mm: number, unit: LengthUnit): string | null {
+	const back = (text: string) => lengthParse(text, unit)?.mm === mm;
+	if (unit === 'in') {
+		const inches = new Fraction(mm).mul(5, 127);
+		for (const step of ['1/8', '1/16', '1/32', '1/64']) {
+			const t = inches.roundTo(step).toFraction(true);
+			if (back(t)) return t;
+		}
+	}
+	const value = unit === 'cm' ? mm / MM_PER_CM : unit === 'in' ? mm / MM_PER_INCH : mm;
+	for (let digits = 0; digits <= 6; digits++) {
+		const t = value.toFixed(digits);
+		if (back(t)) return t;
+	}
+	return null;
+}
+
+/**
+ * A length as a form field's text in `unit`, exact: in the unit where it reads back as the same value,
+ * else with the unit that does written after it ("92 cm" in an inch form), so showing a value in another
+ * unit never changes it.
+ */
+export function lengthFieldText(mm: number, unit: LengthUnit): string {
+	const own = lengthTextExact(mm, unit);
+	if (own !== null) return own;
+	for (const u of ['cm', 'mm'] as const) {
+		const t = lengthTextExact(mm, u);
+		if (t !== null) return `${t} ${u}`;
+	}
+	return `${mm} mm`;
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { blockDraft, draftCautions, EASE_DEFAULT, underStructureDraft, type Ease } from '$lib/pattern/drafting';
+import { draftCautions, EASE_DEFAULT, type Ease } from '$lib/pattern/drafting';
+import { measurementHardProblems } from '$lib/pattern/measurements';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { Db } from '../db';
 import { ApiError } from '../http-errors';
@@ -7,6 +8,7 @@ import { draftedStyleDiscard } from '../repositories/measurement-sets';
 import { stylesCreate, type StyleRow } from '../repositories/styles';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { measurementChartsEnsure } from './charts';
+import { draftAttempt, draftCulprits, draftCulpritText, draftPieces } from './draft-culprit';
 import { measurementSetOr404, measurementsMmOf } from './sets';
 
 /** Ease bounds (whole girth, mm): negative for boned, close-fitting work; the cautions say the rest. */
@@ -59,16 +61,22 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 	if (mm.bust === undefined) {
 		throw new ApiError(422, 'implausible', `"${set.name}" has no bust girth: a block cannot be drafted from it.`, { measurementSetId: ['This set has no bust girth.'] });
 	}
+	// values no human body measures (a set saved before they were refused) are named, not drafted from
+	const hard = measurementHardProblems(mm);
+	if (hard.length > 0) {
+		const messages = hard.map((p) => p.message);
+		throw new ApiError(422, 'implausible', `A block cannot be drafted from "${set.name}": ${messages.join(' ')} Correct the set first.`, { measurementSetId: messages });
+	}
 	const ease: Ease = { bustMm: req.ease.bustMm, waistMm: req.ease.waistMm, ...(req.ease.underbustMm !== undefined ? { underbustMm: req.ease.underbustMm } : {}) };
 	const options = req.options;
-	let block;
-	let panels: Piece[] = [];
-	try {
-		block = blockDraft(mm, ease, { bustDart: options.bustDart, frontCut: options.frontCut, backCut: options.backCut });
-		if (options.underStructure !== 'none') panels = underStructureDraft(mm, ease, { panels: options.underStructure }).panels;
-	} catch (e) {
-		throw new ApiError(422, 'draft_refused', `The block could not be drafted from "${set.name}": ${(e as Error).message}`);
+	const attempt = draftAttempt(ease, options);
+	const failure = attempt(mm);
+	if (failure !== null) {
+		const blame = draftCulpritText(mm, draftCulprits(mm, attempt));
+		throw new ApiError(422, 'draft_refused', `The block could not be drafted from "${set.name}": ${failure}. ${blame}`, { measurementSetId: [blame] });
 	}
+	const drafted = draftPieces(mm, ease, options);
+	if (!drafted.ok) throw new ApiError(422, 'draft_refused', `The block could not be drafted from "${set.name}": ${drafted.message}`);
 	const params = { measurementSetId: set.id, ease, options };
 	const style = await stylesCreate(db, {
 		studioId,
@@ -81,11 +89,8 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 		measurementSetId: set.id,
 		createdBy: authorId
 	});
-	const wanted: { name: string; geometry: Piece; part: string }[] = [
-		{ name: 'Front', geometry: block.front, part: 'front' },
-		{ name: 'Back', geometry: block.back, part: 'back' },
-		...panels.map((p, i) => ({ name: `Under-structure panel ${i + 1}`, geometry: p, part: `panel-${i + 1}` }))
-	];
+	const parts = ['front', 'back', ...drafted.pieces.slice(2).map((_, i) => `panel-${i + 1}`)];
+	const wanted: { name: string; geometry: Piece; part: string }[] = drafted.pieces.map((p, i) => ({ ...p, part: parts[i] }));
 	const out: DraftedStyle['pieces'] = [];
 	try {
 		for (const w of wanted) {

@@ -3,7 +3,8 @@ import {
 	clientReferenceSchema,
 	cupCode,
 	derivationRules,
-	lengthParse,
+	lengthFieldRead,
+	lengthValueProblem,
 	measurementDefinitions,
 	measurementIds,
 	measurementIdSchema,
@@ -40,11 +41,11 @@ export const clientRefInputSchema = z
 		if (!r.success) for (const i of r.error.issues) ctx.addIssue({ code: 'custom', message: i.message });
 	});
 
-/** A length: a number is millimetres; a text is read in the set's unit ("86.5", "34 1/8", "867 mm"). */
-const lengthInputSchema = z.union([
-	z.number().positive('A length must be more than 0.').max(5000, 'That is longer than any body measurement.'),
-	z.string().trim().max(24, 'Too long for a length.')
-]);
+/**
+ * A length: a number is millimetres; a text is read in the set's unit ("86.5", "34 1/8", "867 mm").
+ * Negative, zero, non-numbers and values no human body measures are told apart by valuesCheck.
+ */
+const lengthInputSchema = z.union([z.number(), z.string().trim().max(24, 'Too long for a length.')]);
 export const valuesInputSchema = z.partialRecord(measurementIdSchema, lengthInputSchema);
 
 const setNameSchema = z.string().trim().min(1, 'Name the set.').max(120, 'Keep the name under 120 characters.');
@@ -158,14 +159,16 @@ export function valuesCheck(values: Partial<Record<MeasurementId, number | strin
 	for (const id of measurementIds) {
 		const v = values[id];
 		if (v === undefined || v === '') continue;
+		const label = measurementDefinitions[id].label;
 		if (typeof v === 'number') {
-			mm[id] = v;
+			const problem = lengthValueProblem(label, v);
+			if (problem) push(fields, id, problem);
+			else mm[id] = v;
 			continue;
 		}
-		const parsed = lengthParse(v, unit);
-		if (!parsed || !(parsed.mm > 0)) {
-			push(fields, id, `${measurementDefinitions[id].label}: "${v}" is not a length. Write e.g. ${unit === 'in' ? '34 1/8' : unit === 'cm' ? '86.5' : '865'} (${unit}).`);
-		} else mm[id] = parsed.mm;
+		const read = lengthFieldRead(label, v, unit);
+		if (!read.ok) push(fields, id, read.message);
+		else mm[id] = read.mm;
 	}
 	if (mm.bust === undefined && !fields.bust) push(fields, 'bust', 'Bust girth is needed: the cup code, derived values and every draft start from it.');
 	if (Object.keys(fields).length > 0) return { ok: false, status: 400, message: 'Some values are not lengths.', fields, warningsOnly: false };

@@ -3,7 +3,8 @@
 import { z } from 'zod';
 import {
 	clientReferenceSchema,
-	inchesEighthsText,
+	lengthFieldRead,
+	lengthFieldText,
 	lengthParse,
 	measurementDefinitions,
 	measurementIds,
@@ -38,8 +39,8 @@ export const setFormSchema = z
 		for (const id of measurementIds) {
 			const v = f[id];
 			if (v === '') continue;
-			const p = lengthParse(v, f.unit);
-			if (!p || !(p.mm > 0)) ctx.addIssue({ code: 'custom', path: [id], message: notALength(f.unit) });
+			const read = lengthFieldRead(measurementDefinitions[id].label, v, f.unit);
+			if (!read.ok) ctx.addIssue({ code: 'custom', path: [id], message: read.message });
 		}
 		if (f.bust === '') ctx.addIssue({ code: 'custom', path: ['bust'], message: 'Bust girth is needed: the cup code, derived values and every draft start from it.' });
 	});
@@ -48,10 +49,6 @@ export type SetForm = z.infer<typeof setFormSchema>;
 
 /** The form's status message (superforms `message`). */
 export type FormMessage = { kind: 'warnings' | 'errors'; text: string };
-
-export function notALength(unit: LengthUnit): string {
-	return unit === 'in' ? 'Not a length in inches: write e.g. 34 1/8 or 34.125.' : unit === 'cm' ? 'Not a length in cm: write e.g. 86.5.' : 'Not a length in mm: write e.g. 865.';
-}
 
 /** The typed values that read as lengths, in mm. */
 export function formMm(f: Pick<SetForm, 'unit'> & Partial<Record<MeasurementId, string>>): MeasurementsMm {
@@ -65,11 +62,13 @@ export function formMm(f: Pick<SetForm, 'unit'> & Partial<Record<MeasurementId, 
 	return out;
 }
 
-/** A length in mm as a field value in a unit (no unit suffix): 867 → "86.7" (cm), "34 1/8" (in). */
+/**
+ * A length in mm as a field value in a unit, exact: 867 → "86.7" (cm), 866.775 → "34 1/8" (in); a value the
+ * unit cannot say exactly keeps a unit that can (920 mm in an inch form: "92 cm"). So switching the unit,
+ * or opening a set to edit it, never changes a stored value.
+ */
 export function fieldText(mm: number, unit: LengthUnit): string {
-	if (unit === 'in') return inchesEighthsText(mm / 25.4);
-	if (unit === 'cm') return String(Math.round(mm) / 10);
-	return String(Math.round(mm * 10) / 10);
+	return lengthFieldText(mm, unit);
 }
 
 /** Form values of a stored set (for editing). */
