@@ -1,0 +1,78 @@
+// The pivot form: the new opening typed as a point on a named seam, previewed while typing, never a
+// negative length; nothing opens on the fold (built app, Debian's Chromium).
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
+import type { Piece } from '../../src/lib/pattern/piece-schema';
+import { browserLaunch, pageScreenshot } from './chromium';
+import { dragOnPiece, editorOpen, editorSetUp, firstKey, lerp } from './editor-helpers';
+
+const block = frontBodiceBlock();
+const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
+const bp = block.apexes[0].point;
+
+describe('pivot target on a named seam', () => {
+	let browser: Browser;
+	const baseUrl = () => inject('baseUrl');
+	beforeAll(async () => {
+		browser = await browserLaunch();
+	});
+	afterAll(async () => {
+		await browser?.close();
+	});
+
+	it('types the new opening as a seam, an end and a distance, previews each keystroke, and shows no negative length', { timeout: 120_000 }, async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		const problems: string[] = [];
+		page.on('pageerror', (e) => problems.push(e.message));
+		await editorOpen(page, f.editorUrl);
+		await page.click('[data-tool="pivot"]');
+		await page.selectOption('#tool-dart', 'shoulder-dart');
+
+		// the seams are offered by name; the fold is there but cannot be chosen
+		const seams = await page.locator('#pivot-seam option').allTextContents();
+		expect(seams).toEqual(expect.arrayContaining(['shoulder', 'armhole', 'side seam', 'waist', 'neckline']));
+		expect(await page.locator('#pivot-seam option', { hasText: 'fold' }).isDisabled()).toBe(true);
+
+		await page.selectOption('#pivot-seam', 'side seam');
+		expect(await page.locator('#pivot-from option').allTextContents()).toEqual(['from the armhole end', 'from the waist end']);
+		await page.selectOption('#pivot-from', 'start');
+		const readouts = page.locator('[data-testid="tool-readouts"]');
+		// the preview follows each keystroke: "6", then "60"
+		await page.locator('#pivot-distance').pressSequentially('6');
+		await expect.poll(() => readouts.textContent()).toContain('side seam, 6.0 mm from the armhole end');
+		await page.locator('#pivot-distance').pressSequentially('0');
+		await expect.poll(() => readouts.textContent()).toContain('side seam, 60.0 mm from the armhole end');
+		await pageScreenshot(page, 'pivot-target-typed');
+
+		// a negative distance is refused in words, never shown
+		await page.fill('#pivot-distance', '-5');
+		await expect.poll(() => page.getByTestId('pivot-target').textContent()).toContain('never negative');
+		expect(await readouts.textContent()).not.toMatch(/[−-]\d/);
+		await page.fill('#pivot-distance', '60');
+		await expect.poll(() => readouts.textContent()).toContain('side seam, 60.0 mm from the armhole end');
+		await page.click('button:has-text("Apply")');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pivot');
+		const key = await firstKey(page);
+		const geometry = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		expect(geometry.darts.find((d) => d.id === 'shoulder-dart')!.leg1End.x).toBeGreaterThan(200);
+		expect(geometry.foldLine).toEqual(block.foldLine);
+		expect(problems).toEqual([]);
+		await f.context.close();
+	});
+
+	it('dragging a dart onto the fold line shows the refusal in the preview and applies nothing', { timeout: 120_000 }, async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		const key = await firstKey(page);
+		await page.click('[data-tool="pivot"]');
+		await dragOnPiece(page, key, lerp(bp, shoulder.leg1End, 0.85), { x: 0, y: 250 });
+		await expect.poll(() => page.locator('[role="alert"]').allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining('on the fold line')]));
+		expect(await page.locator('button:has-text("Apply")').isDisabled()).toBe(true);
+		expect(await page.locator('[data-testid="recipe"] li').first().textContent()).toContain('No steps yet');
+		await pageScreenshot(page, 'pivot-onto-fold-refused');
+		await f.context.close();
+	});
+});
