@@ -11,7 +11,8 @@ import { openWedges, TARGET_SNAP_TOLERANCE_MM, type OpenWedgesOutput, type OpenW
  * the pattern plus its reflection across it. So no dart, pleat or slash may open on the fold, and when a
  * dart is pivoted the side that holds the fold line stays still; failing a fold, the side of the centre
  * front (or back, marked by its label "CF" or "CB"); failing that, the side that holds the grainline (drawn
- * parallel to the centre line, reference-values row 27, C). The other side turns. Pivoting about the apex therefore never moves, nor slants, the fold line.
+ * parallel to the centre line, reference-values row 27, C). The other side turns. Pivoting about the apex
+ * therefore never moves, nor slants, the fold line.
  */
 
 export interface StillAnchor {
