@@ -62,7 +62,8 @@ export const legSideSchema = z.enum(['leg1', 'leg2']);
 /**
  * A dart. Its wedge is cut out of the outline: the outline runs … → leg1End → apex → leg2End → …
  * (leg1 comes before the apex in outline order). `movingLeg` is the side whose chain rotates in a
- * pivot (primer §1: "the chain from the moving leg L2 to S").
+ * pivot (primer §1: "the chain from the moving leg L2 to S") when the piece has no fold line, centre
+ * front label or grainline; with one, the side that holds it stays still (operations/still-side.ts).
  */
 export const dartSchema = z.object({
 	id: idSchema,

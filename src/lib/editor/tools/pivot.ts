@@ -1,5 +1,6 @@
 import { vecDistance } from '$lib/geometry';
-import { emptyPreview, type ToolDef } from './types';
+import { pointOnFold } from '$lib/pattern/operations/still-side';
+import { emptyPreview, type OverlayItem, type ToolDef } from './types';
 import { dartApex, deg, mm, pickDart, stepPreview, toolPiece } from './common';
 import { dartNear } from '../hit';
 import { seamsOf, seamTargetText } from '../pivot-target';
@@ -67,7 +68,11 @@ export const pivotTool: ToolDef = {
 		if (!s.input.target) return { ...emptyPreview(key), overlay };
 		const t = s.input.target;
 		overlay.push({ kind: 'line', points: [w.apex, t], tone: 'select' });
-		return stepPreview(s, { op: 'pivot', params: { dartId: s.input.dartId, to: t } }, [...overlay, { kind: 'point', at: t, tone: 'preview' }], (v) => [
+		// on the fold the operation refuses; the canvas says so where the pointer is
+		const marks: OverlayItem[] = pointOnFold(piece, t)
+			? [{ kind: 'point', at: t, tone: 'bad' }, { kind: 'label', at: t, text: 'fold line: no dart opens here' }]
+			: [{ kind: 'point', at: t, tone: 'preview' }];
+		return stepPreview(s, { op: 'pivot', params: { dartId: s.input.dartId, to: t } }, [...overlay, ...marks], (v) => [
 			{ label: 'Dart angle', value: deg(v.angleRad) },
 			{ label: 'Intake before', value: mm(s, v.oldIntakeMm) },
 			{ label: 'Intake after', value: mm(s, v.newIntakeMm) },

@@ -3,6 +3,8 @@ import { frontBodiceBlock, FRONT_BLOCK_BUST_POINT } from '../fixtures/front-bodi
 import { outlineNearestLocation, vecDistance, vecLerp, type Vec } from '../kernel';
 import { pieceMetrics } from '../metrics';
 import type { Piece } from '../piece-schema';
+import { recipeReplayStep } from '../verify/replay';
+import { versionVerify } from '../verify/version-verify';
 import { applyOperation } from './index';
 import { pivot } from './pivot';
 
@@ -44,6 +46,18 @@ describe('no dart, pleat or slash opens on the fold line', () => {
 			const r = applyOperation(block, step);
 			expect(r.ok, step.op).toBe(false);
 			if (!r.ok) expect(r.error.code, step.op).toBe('target_on_fold');
+		}
+	});
+
+	it('the server refuses a version whose recipe opens a dart on the fold: its replay is refused', () => {
+		const block = frontBodiceBlock();
+		// what an older browser would have sent: the whole piece turned so the dart sits on the fold edge
+		const step = { op: 'pivot', params: { dartId: 'waist-dart', to: onFold } };
+		const v = versionVerify(block, block, [step], recipeReplayStep);
+		expect(v.ok).toBe(false);
+		if (!v.ok) {
+			expect(v.problem.code).toBe('replay_refused');
+			expect(v.problem.message).toMatch(/on the fold line/);
 		}
 	});
 
