@@ -62,6 +62,25 @@ describe('pivot target on a named seam', () => {
 		await f.context.close();
 	});
 
+	it('shares a dart out to points typed on named seams', { timeout: 120_000 }, async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		await page.click('[data-tool="share"]');
+		await page.selectOption('#tool-dart', 'shoulder-dart');
+		await page.selectOption('#share-at-seam', 'side seam');
+		await page.fill('#share-at-distance', '50');
+		await page.click('button:has-text("Add part")');
+		await page.selectOption('#share-at-seam', 'armhole');
+		await page.selectOption('#share-at-from', 'end');
+		await page.fill('#share-at-distance', '40');
+		await page.click('button:has-text("Add part")');
+		await expect.poll(() => page.locator('label', { hasText: 'Part 2 share' }).count()).toBe(1);
+		await page.click('button:has-text("Apply")');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Share');
+		await f.context.close();
+	});
+
 	it('dragging a dart onto the fold line shows the refusal in the preview and applies nothing', { timeout: 120_000 }, async () => {
 		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
