@@ -81,6 +81,33 @@ describe('pivot target on a named seam', () => {
 		await f.context.close();
 	});
 
+	it('places pleats on a side of the dart named by the seam end it faces, with an unsigned distance', { timeout: 120_000 }, async () => {
+		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const { page } = f;
+		await editorOpen(page, f.editorUrl);
+		await page.click('[data-tool="pleat"]');
+		await page.selectOption('#tool-dart', 'shoulder-dart');
+		expect(await page.locator('#pleat-side option').allTextContents()).toEqual(['toward the armhole end', 'toward the neckline end']);
+		await page.selectOption('#pleat-side', 'leg1');
+		await page.fill('#pleat-count', '2');
+		await page.fill('#pleat-first', '10');
+		await page.press('#pleat-first', 'Tab');
+		await page.fill('#pleat-spacing', '20');
+		await page.press('#pleat-spacing', 'Tab');
+		await expect.poll(() => page.locator('[data-testid="tool-readouts"]').textContent()).toContain('Pleat 2 intake');
+		expect(await page.inputValue('#pleat-first')).toBe('10');
+		expect(await page.inputValue('#pleat-side')).toBe('leg1');
+		await page.click('button:has-text("Apply")');
+		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pleat');
+		const key = await firstKey(page);
+		const geometry = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
+		// the pleats opened on the neckline side: the farther one's edge on the still part lies between the neck and the old dart
+		expect(geometry.pleats).toHaveLength(2);
+		expect(Math.min(...geometry.pleats.map((p) => p.leg1End.x))).toBeLessThan(shoulder.leg1End.x);
+		expect(geometry.foldLine).toEqual(block.foldLine);
+		await f.context.close();
+	});
+
 	it('dragging a dart onto the fold line shows the refusal in the preview and applies nothing', { timeout: 120_000 }, async () => {
 		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { vecDistance, vecLerp } from '$lib/geometry';
 import { frontBodiceBlock } from '$lib/pattern/fixtures/front-bodice-block';
 import { pivot } from '$lib/pattern/operations';
-import { seamEndLabel, seamsOf, seamTargetFrom, seamTargetOf, seamTargetPoint, seamTargetText } from './pivot-target';
+import { dartSideLabels, seamEndLabel, seamsOf, seamTargetFrom, seamTargetOf, seamTargetPoint, seamTargetText } from './pivot-target';
 
 /** The pivot form names the new opening as a place on a named seam, measured from one of its ends. */
 describe('a pivot target as a point on a named seam', () => {
@@ -60,5 +60,13 @@ describe('a pivot target as a point on a named seam', () => {
 		if (!r.ok) throw new Error(r.message);
 		const moved = pivot(block, { dartId: 'shoulder-dart', to: r.point });
 		expect(moved.ok).toBe(true);
+	});
+});
+
+describe('the sides of a dart along its seam', () => {
+	it('names them by the seam ends they face: the shoulder dart lies between the neckline and armhole ends', () => {
+		const block = frontBodiceBlock();
+		const d = block.darts.find((x) => x.id === 'shoulder-dart')!;
+		expect(dartSideLabels(block, d)).toEqual({ leg1: 'toward the neckline end', leg2: 'toward the armhole end' });
 	});
 });

@@ -1,4 +1,4 @@
-import type { Vec } from '$lib/geometry';
+import { vecDistance, type Vec } from '$lib/geometry';
 import { pieceSeams, seamLocate, seamPointAt, type PieceSeam, type SeamEnd } from '$lib/pattern/piece-seams';
 import type { Piece } from '$lib/pattern/piece-schema';
 
@@ -56,4 +56,17 @@ export function seamTargetText(piece: Piece, seams: readonly PieceSeam[], p: Vec
 	if (!t) return 'not on a seam';
 	const seam = seams.find((s) => s.name === t.seamName)!;
 	return `${seam.name}, ${fmtLength(t.distanceMm)} ${seamEndLabel(seam, t.from)}`;
+}
+
+/**
+ * How the pleat form names the two sides of a dart along its seam: leg 2 lies forward in outline order,
+ * toward the seam's end; leg 1 backward, toward its start ("toward the armhole end").
+ */
+export function dartSideLabels(piece: Piece, dart: { leg1End: Vec; leg2End: Vec }): { leg1: string; leg2: string } {
+	const seams = pieceSeams(piece);
+	// the seam stretch that leaves the dart's leg 2 end
+	const segs = piece.outline.segments;
+	const seam = seams.find((x) => x.segmentIndices.some((i) => vecDistance(segs[i].p0, dart.leg2End) < 1e-6));
+	if (!seam) return { leg1: 'on the leg 1 side', leg2: 'on the leg 2 side' };
+	return { leg1: `toward the ${seam.startNeighbour} end`, leg2: `toward the ${seam.endNeighbour} end` };
 }
