@@ -20,6 +20,7 @@ import { panelRefuse, panelReport, type PanelFailure, type SeamPair } from './pa
 import { REACH_MM, SEAM_SNAP_MM } from './panel-tolerances';
 import { pieceMapPoints, pieceProblems, rotateFn } from './piece-tools';
 import { divergenceCandidates, seamWedge, type SeamWedge } from './seam-wedge';
+import { nonFiniteAt } from './finite-check';
 import { separate } from './separate';
 import { mergeMarkings, spliceOutlines } from './splice';
 import type { OperationReport } from '../operation-result';
@@ -51,6 +52,13 @@ export interface CarryParams {
 	readonly pieceId?: string;
 	readonly name?: string;
 	readonly styleSeamId?: string;
+}
+
+export interface CarryPlacement {
+	readonly panelId: string;
+	readonly angleRad: number;
+	readonly dxMm: number;
+	readonly dyMm: number;
 }
 
 export type SeamOutcome = 'closed' | 'residual' | 'plain';
@@ -91,6 +99,12 @@ export type CarryResult =
 			readonly seams: readonly CarrySeam[];
 			readonly residuals: readonly CarryResidual[];
 			readonly reachLine: Path;
+			/**
+			 * Where each panel's part on the chosen side was laid in the joined piece: a rigid turn by angleRad
+			 * followed by a shift, p ↦ R(angleRad)·p + (dxMm, dyMm), in the order the panels were given (panel 0
+			 * stays put). Its inverse lays a part back as drafted (un-carry).
+			 */
+			readonly placements: readonly CarryPlacement[];
 			readonly styleSeamEdges: readonly Path[];
 			readonly styleSeamLengthMm: number;
 			/** The style line across the other side as drawn (its parts plus what stays open between them). */
@@ -184,6 +198,7 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	const carrySeams: CarrySeam[] = [];
 	const reach: Vec[] = [pathFirst(line)];
 	const styleSeamEdges: Path[] = [parts[0].cut];
+	const placements: CarryPlacement[] = [placementOf(panels[0].id, T)];
 	const notes: string[] = [];
 	let shapingMovedMm = 0;
 	for (let k = 0; k < seams.length; k++) {
@@ -213,6 +228,7 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 			fused = { ...fused, ...mergeMarkings(fused, B, o), outline: o };
 			reach.push(c);
 			styleSeamEdges.push(pathMapPoints(partB.cut, T));
+			placements.push(placementOf(right.id, T));
 			continue;
 		}
 		const D = wedge.apex.point;
@@ -254,6 +270,17 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 			reach.push(D);
 			return piece;
 		};
+		/** The chosen parts coincide along the seam: joined as they lie, the wedge stays in the other side's panel seam. */
+		const plain = (o: typeof fused.outline, h: number, at: Vec, note: string) => {
+			fused = { ...fused, ...mergeMarkings(fused, B, o), outline: o };
+			ledgerEntries.push(
+				ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: `wedge of "${pair.id}" lies wholly on the other side of the style line`, angleRad: -theta }),
+				ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: 'stays in that panel seam', angleRad: theta })
+			);
+			notes.push(note);
+			carrySeams.push({ seamId: pair.id, apexId, outcome: 'plain', angleRad: theta, distanceMm: h, closedAtLineMm: 0 });
+			reach.push(at);
+		};
 		let o: typeof fused.outline | null = null;
 		if (mouthOnFused && (reachesD || (ca && cb))) {
 			// closes fully: rotate the rest about D
@@ -261,27 +288,34 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 			const R = rotateFn(T0(D), wedge.closingRotationRad);
 			const RT = (p: Vec) => R(T0(p));
 			const Bn = pieceMapPoints(partB.fused, RT);
-			const pa = ca && !reachesD ? ca : D;
-			const pb = cb && !reachesD ? cb : D;
+			// the line crosses both open legs (however close to D): the parts meet from the farther crossing to the
+			// mouth; a line through the shared part within reach of D closes from D itself
+			const legs = ca && cb ? { ca, cb } : null;
+			const pa = legs ? legs.ca : D;
+			const pb = legs ? legs.cb : D;
 			const start = dist(pa, D) >= dist(pb, D) ? T(pa) : RT(pb);
 			o = spliceOutlines(fused.outline, Bn.outline, start, T(mouthA), SEAM_SNAP_MM);
 			if (!o) return panelRefuse('wedge_not_closing', `Seam "${pair.id}": after closing the wedge the panel edges do not meet; true the seam first.`);
 			fused = { ...fused, ...mergeMarkings(fused, Bn, o), outline: o };
-			const gap = reachesD ? 0 : dist(ca!, cb!);
+			const gap = legs ? dist(legs.ca, legs.cb) : 0;
 			shapingMovedMm += gap;
 			ledgerEntries.push(
 				ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: `panel-seam wedge of "${pair.id}" closed`, angleRad: -theta }),
 				ledgerEntry({ apexId, kind: 'seam', refId: styleSeamId, label: 'carried into the style seam', angleRad: theta })
 			);
-			carrySeams.push({ seamId: pair.id, apexId, outcome: 'closed', angleRad: theta, distanceMm: reachesD ? 0 : dist(ca!, D), closedAtLineMm: gap });
-			reach.push(reachesD ? D : ca!);
+			carrySeams.push({ seamId: pair.id, apexId, outcome: 'closed', angleRad: theta, distanceMm: legs ? dist(legs.ca, D) : cs ? dist(cs, D) : 0, closedAtLineMm: gap });
+			reach.push(legs ? legs.ca : D);
 			T = RT;
 			styleSeamEdges.push(pathMapPoints(partB.cut, T));
 		} else if (!mouthOnFused && ca && cb && wedge.sharedA) {
 			// D on the chosen side, wedge opening toward the line: the stub between D and the line stays open
 			o = spliceOutlines(fused.outline, B.outline, T(pathFirst(wedge.sharedA)), T(D), SEAM_SNAP_MM);
-			if (!o) return panelRefuse('seam_not_on_piece', `Seam "${pair.id}": the panel edges could not be joined below the divergence point.`);
-			fused = leave(distanceAlongAxis(D, ca, cb), dist(ca, cb), o, B);
+			if (!o) return panelRefuse('seam_not_on_piece', `Seam "${pair.id}": the panel edges could not be joined beside the divergence point.`);
+			const h = stubHeight(D, ca, cb);
+			if (h <= REACH_MM) {
+				// the line runs through D (within reach): nothing stays open on this side, the wedge stays whole on the other
+				plain(o, h, ca, `Seam "${pair.id}": the style line runs through its divergence point; the whole wedge stays in the panel seam on the other side.`);
+			} else fused = leave(h, dist(ca, cb), o, B);
 			styleSeamEdges.push(pathMapPoints(partB.cut, T));
 		} else if (mouthOnFused && cs && wedge.sharedA) {
 			// D on the chosen side, wedge opening away from the line: close it about D, the stretch D–line opens
@@ -300,18 +334,12 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 			const farShared = pathFirst(wedge.sharedA!);
 			o = spliceOutlines(fused.outline, B.outline, T(cs), T(farShared), SEAM_SNAP_MM);
 			if (!o) return panelRefuse('seam_not_on_piece', `Seam "${pair.id}": the panel edges could not be joined.`);
-			fused = { ...fused, ...mergeMarkings(fused, B, o), outline: o };
-			ledgerEntries.push(
-				ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: `wedge of "${pair.id}" lies wholly on the other side of the style line`, angleRad: -theta }),
-				ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: 'stays in that panel seam', angleRad: theta })
-			);
-			notes.push(`Seam "${pair.id}": its wedge lies wholly on the other side of the style line; nothing to carry.`);
-			carrySeams.push({ seamId: pair.id, apexId, outcome: 'plain', angleRad: theta, distanceMm: dist(cs, D), closedAtLineMm: 0 });
-			reach.push(cs);
+			plain(o, dist(cs, D), cs, `Seam "${pair.id}": its wedge lies wholly on the other side of the style line; nothing to carry.`);
 			styleSeamEdges.push(pathMapPoints(partB.cut, T));
 		} else {
 			return panelRefuse('style_line_misses_panel', `The style line does not cross seam "${pair.id}" where it can be followed.`);
 		}
+		placements.push(placementOf(right.id, T));
 	}
 	reach.push(pathLast(line));
 	const id = params.pieceId ?? `${panels[0].id}-joined`;
@@ -331,13 +359,14 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 		toleranceMm: SEAM_SNAP_MM
 	}));
 	const carried = carrySeams.filter((s) => s.outcome === 'closed').reduce((s, c) => s + c.angleRad, 0);
-	return {
+	const result: CarryResult = {
 		ok: true,
 		pieces: [joined, ...others],
 		seamPairs,
 		seams: carrySeams,
 		residuals,
 		reachLine: pathFromPolyline(reach),
+		placements,
 		styleSeamEdges,
 		styleSeamLengthMm,
 		otherSideSeamLengthMm,
@@ -352,11 +381,25 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 			[...notes, ...residuals.map((r) => r.message)]
 		)
 	};
+	// every figure worked out here (outlines only move rigidly, by the placements checked here)
+	const { seams: sv, residuals: rv, ledgerEntries: lv, report: pv } = result;
+	const bad = nonFiniteAt({ sv, rv, lv, pv, placements, markings: [joined.apexes, joined.darts, joined.pleats], lengths: [styleSeamLengthMm, otherSideSeamLengthMm, shapingMovedMm] });
+	if (bad) return panelRefuse('result_broken', 'This style line gives no usable result here (a length or angle cannot be measured); move it a little and try again.');
+	return result;
 }
 
-/** Distance from D to the line through the two crossing points (the height of the stub). */
-function distanceAlongAxis(D: Vec, a: Vec, b: Vec): number {
+/** The rigid placement a point map applies (read off from where it sends two points). */
+function placementOf(panelId: string, T: (p: Vec) => Vec): CarryPlacement {
+	const o = T({ x: 0, y: 0 });
+	const u = T({ x: 1, y: 0 });
+	return { panelId, angleRad: Math.atan2(u.y - o.y, u.x - o.x), dxMm: o.x, dyMm: o.y };
+}
+
+/** Distance from D to the line through the two crossing points (the height of the stub); where they meet, D to that point. */
+function stubHeight(D: Vec, a: Vec, b: Vec): number {
 	const dx = b.x - a.x;
 	const dy = b.y - a.y;
-	return Math.abs((D.x - a.x) * dy - (D.y - a.y) * dx) / Math.hypot(dx, dy);
+	const len = Math.hypot(dx, dy);
+	if (len < 1e-9) return dist(a, D);
+	return Math.abs((D.x - a.x) * dy - (D.y - a.y) * dx) / len;
 }

@@ -7,6 +7,8 @@ import { ON_LINE_MM, SEAM_SNAP_MM } from './panel-tolerances';
 import { pieceMapPoints, pieceProblems, pieceReverse, rotateFn } from './piece-tools';
 import { divergenceCandidates, orientLike, seamWedge } from './seam-wedge';
 import { mergeMarkings, spliceOutlines } from './splice';
+import { reopenedDarts } from './reopen-dart';
+import { wedgeGeometry } from '../piece';
 
 /**
  * join: merge two pieces along a seam pair (trade-primer §6).
@@ -71,7 +73,19 @@ export function joinPieces(a: Piece, bIn: Piece, ea: Path, ebIn: Path, params: J
 		const outline = spliceOutlines(a.outline, b.outline, pathFirst(ea), pathLast(ea), tol);
 		if (!outline) return { error: panelRefuse('seam_not_on_piece', 'The seam edges could not be found on the outlines.') };
 		const notes = deviation > 1e-6 ? [`Seam edges ${deviation.toFixed(3)} mm apart were snapped together.`] : [];
-		return { piece: build(outline, a, b), ledgerEntries: [], closedAngleRad: 0, newDart: null, notes };
+		// a seam that separate cut through a dart's apex: joined back, the wedge is whole again and is a dart again
+		const joined = build(outline, a, b);
+		const darts = reopenedDarts(joined, [pathFirst(ea), pathLast(ea)], tol, (apex) => params.dartId ?? `${apex.id}-dart`);
+		const ledgerEntries = darts.flatMap((d) => {
+			const apex = joined.apexes.find((x) => x.id === d.apexId)!;
+			const angleRad = wedgeGeometry(apex.point, d.leg1End, d.leg2End).angleRad;
+			return [
+				ledgerEntry({ apexId: apex.id, kind: 'seam', refId: 'panel-seam', label: `seam between ${a.name} and ${bIn.name} closed up to ${apex.label || apex.id}`, angleRad: -angleRad }),
+				ledgerEntry({ apexId: apex.id, kind: 'dart', refId: d.id, label: `dart ${d.id} open again at ${apex.label || apex.id}`, angleRad })
+			];
+		});
+		if (darts.length) notes.push(`${darts.length === 1 ? 'A dart' : `${darts.length} darts`} that the seam had absorbed ${darts.length === 1 ? 'is' : 'are'} a dart again.`);
+		return { piece: darts.length ? { ...joined, darts: [...joined.darts, ...darts] } : joined, ledgerEntries, closedAngleRad: 0, newDart: darts[0] ?? null, notes };
 	}
 	const candidates = divergenceCandidates(a, b, ea, eb, tol);
 	if (candidates.length === 0) {

@@ -9,7 +9,7 @@ import { chainsDeviation, dist, pathFirst, pathLast } from './chain-tools';
 
 export interface SeamWedge {
 	readonly apex: Apex;
-	/** Parts that coincide (from the shared end to D); empty when the edges meet only at D. */
+	/** Parts that coincide, each running from the shared far end to D (whichever way the edges were given); null when the edges meet only at D. */
 	readonly sharedA: Path | null;
 	readonly sharedB: Path | null;
 	/** Parts that diverge, each running from D outward. */
@@ -62,7 +62,7 @@ export function seamWedge(ea: Path, ebIn: Path, apex: Apex, tol: number): SeamWe
 	if (coincide(a1, b1)) {
 		[sharedA, sharedB, openA, openB] = [a1, b1, a2, b2];
 	} else if (coincide(a2, b2)) {
-		[sharedA, sharedB, openA, openB] = [a2, b2, a1 ? pathReverse(a1) : null, b1 ? pathReverse(b1) : null];
+		[sharedA, sharedB, openA, openB] = [pathReverse(a2!), pathReverse(b2!), a1 ? pathReverse(a1) : null, b1 ? pathReverse(b1) : null];
 	} else if (!a1 && !b1) {
 		[openA, openB] = [a2, b2];
 	} else if (!a2 && !b2) {
