@@ -8,6 +8,7 @@ export { carry, type CarryParams, type CarryResult, type CarryResidual, type Car
 export { trueSeam, type TrueSeamParams, type TrueSeamResult, type SeamLengths } from './true-seam';
 export { sewnLength } from './seam-measure';
 export { notch, outlineCorners, type NotchParams } from './notch';
+export { divergencePoint, type DivergencePointParams } from './divergence-point';
 export { grain, type GrainParams, type GrainDirection } from './grain';
 export { fold, unfold, FOLD_STRAIGHTNESS_MM } from './fold';
 export { allowance, ALLOWANCE_FLATTEN_MM, ALLOWANCE_SIMPLIFY_MM, type AllowanceParams, type AllowanceResult, type AllowanceCorner } from './allowance';

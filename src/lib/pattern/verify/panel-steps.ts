@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { allowance, fold, grain, notch, styleLine, unfold } from '../panels';
+import { allowance, divergencePoint, fold, grain, notch, styleLine, unfold } from '../panels';
 import { refuse, type OperationResult } from '../operation-result';
 import { allowanceCornerSchema, lineMarkSchema, pathSchema, vecSchema, type Piece } from '../piece-schema';
 
@@ -14,6 +14,9 @@ const id = z.string().min(1).max(64);
 export const panelStepSchemas = {
 	style_line: z.object({ id, path: pathSchema, label: z.string().max(80).optional() }),
 	notch: z.object({ id, at: vecSchema, count: z.union([z.literal(1), z.literal(2)]).optional() }),
+	divergence_point: z
+		.object({ apexId: id.optional(), at: vecSchema.optional(), id: id.optional(), label: z.string().max(80).optional() })
+		.refine((p) => p.apexId !== undefined || (p.at !== undefined && p.id !== undefined), { message: 'give the apex to mark, or a point and an id' }),
 	grain: z.object({
 		through: vecSchema,
 		lengthMm: finite(),
@@ -51,6 +54,8 @@ export function panelStepApply(piece: Piece, op: PanelStepOp, raw: unknown): Ope
 			return styleLine(piece, p);
 		case 'notch':
 			return notch(piece, p);
+		case 'divergence_point':
+			return divergencePoint(piece, p);
 		case 'grain':
 			return grain(piece, p);
 		case 'fold':
