@@ -243,6 +243,18 @@ describe('drafting a block into a new style', () => {
 		}
 		const front = overview.pieces.find((p: { name: string }) => p.name === 'Front');
 		expect(front.cut).toBe('pair');
+		// the seam between the two panels is stored, sewn to match, and both panels mark where it parts
+		expect(overview.seamPairs).toHaveLength(1);
+		const sp = overview.seamPairs[0];
+		const panelIds = overview.pieces.filter((p: { name: string }) => p.name.startsWith('Under-structure')).map((p: { id: string }) => p.id);
+		expect([sp.aPieceId, sp.bPieceId]).toEqual(panelIds);
+		expect(sp.label).toBe('panel seam A');
+		expect(sp.allowedEaseMm).toBe(0);
+		for (const id of panelIds) {
+			const p = overview.pieces.find((x: { id: string }) => x.id === id);
+			const v = (await (await cutter.api('GET', `/api/studios/${studioId}/pieces/${id}/versions/${p.headVersionId}`)).json()).version;
+			expect(v.geometry.apexes.some((a: { kind: string }) => a.kind === 'divergence')).toBe(true);
+		}
 	});
 
 	it('a draft that fails names the measurement that made it fail', async () => {

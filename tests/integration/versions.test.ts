@@ -210,6 +210,28 @@ describe('saving versions', () => {
 		expect(signed.status).toBe(200);
 	});
 
+	it('unpairs two seams: an editor removes the pair (204), a designer may not (403), a second time is 404', async () => {
+		const { styleId, pieceId } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const [e1, e2] = [block.outline.segments[7], block.outline.segments[11]];
+		const end = (e: typeof e1) => (e.kind === 'line' ? e.p1 : e.p3);
+		const created = await c.api('POST', `/api/studios/${studioId}/styles/${styleId}/seam-pairs`, {
+			label: 'to unpair',
+			a: { pieceId, from: e1.p0, to: end(e1) },
+			b: { pieceId, from: e2.p0, to: end(e2) },
+			toleranceMm: 1.6
+		});
+		const pair = (await created.json()).seamPair;
+		const url = `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`;
+		const d = await signedInClient(app.baseUrl, designer);
+		expect((await d.api('DELETE', url)).status).toBe(403);
+		expect((await c.api('DELETE', url)).status).toBe(204);
+		const after = await (await c.api('GET', `/api/studios/${studioId}/styles/${styleId}/seam-pairs`)).json();
+		expect(after.seamPairs.some((x: { id: string }) => x.id === pair.id)).toBe(false);
+		expect((await c.api('DELETE', url)).status).toBe(404);
+		expect((await c.api('DELETE', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/not-a-uuid`)).status).toBe(400);
+	});
+
 	it('lets a designer sign off a version; the earlier signed-off one becomes superseded', async () => {
 		const { pieceId, v1 } = await styleWithPiece();
 		const d = await signedInClient(app.baseUrl, designer);

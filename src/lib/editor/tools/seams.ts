@@ -1,5 +1,5 @@
-import { outlineBetween, pathLength, pathReverse, vecDistance, type Path, type Vec } from '$lib/geometry';
-import { outlineNearestLocation } from '$lib/pattern/kernel';
+import { pathLength, pathReverse, vecDistance, type Path, type Vec } from '$lib/geometry';
+import { edgeEnds, edgeInOrder } from '$lib/pattern/panels/seam-edge-ends';
 import type { SeamPair } from '$lib/pattern/panels';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { EditorState } from '../editor-state.svelte';
@@ -14,24 +14,7 @@ const last = (p: Path): Vec => {
 	return s.kind === 'line' ? s.p1 : s.p3;
 };
 
-/** The stretch of the outline from `from` to `to` in outline order (as the server stores seam edges). */
-export function edgeInOrder(piece: Piece, from: Vec, to: Vec): Path {
-	return outlineBetween(piece.outline, outlineNearestLocation(piece.outline, from), outlineNearestLocation(piece.outline, to));
-}
-
-/**
- * A seam edge's ends as the server stores them: `from` → `to` in the piece's outline order. Walking the
- * outline forward from the path's first point to its last should give about the path's length; if the
- * other way round comes closer, the path runs against the outline and its ends are swapped.
- */
-export function edgeEnds(piece: Piece, edge: Path): { from: Vec; to: Vec } {
-	const a = first(edge);
-	const b = last(edge);
-	const len = pathLength(edge);
-	const fwd = pathLength(edgeInOrder(piece, a, b));
-	const back = pathLength(edgeInOrder(piece, b, a));
-	return Math.abs(fwd - len) <= Math.abs(back - len) ? { from: a, to: b } : { from: b, to: a };
-}
+export { edgeEnds, edgeInOrder };
 
 /** The shorter stretch of the outline between two clicked points, in click order. */
 export function edgeBetween(piece: Piece, from: Vec, to: Vec): Path {

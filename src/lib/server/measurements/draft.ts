@@ -1,15 +1,20 @@
 import { z } from 'zod';
-import { draftCautions, EASE_DEFAULT, type Ease } from '$lib/pattern/drafting';
+import { draftCautions, EASE_DEFAULT, underStructureDraft, type Ease } from '$lib/pattern/drafting';
 import { measurementHardProblems } from '$lib/pattern/measurements';
+import { draftedSeamPairs } from '$lib/pattern/panels/drafted-seams';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { Db } from '../db';
 import { ApiError } from '../http-errors';
 import { draftedStyleDiscard } from '../repositories/measurement-sets';
+import { seamPairsCreate } from '../repositories/seam-pairs';
 import { stylesCreate, type StyleRow } from '../repositories/styles';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { measurementChartsEnsure } from './charts';
 import { draftAttempt, draftCulprits, draftCulpritText, draftPieces } from './draft-culprit';
 import { measurementSetOr404, measurementsMmOf } from './sets';
+
+/** Drafted panel seams are sewn to match, trued to 1/16 in (reference-values row 25, C/P). */
+const DRAFTED_SEAM_TOLERANCE_MM = 25.4 / 16;
 
 /** Ease bounds (whole girth, mm): negative for boned, close-fitting work; the cautions say the rest. */
 const easeMm = (label: string) =>
@@ -51,7 +56,8 @@ export interface DraftedStyle {
  * Drafts a fitted bodice block (and, if asked, a boned under-structure) from one of the studio's
  * measurement sets, ON THE SERVER, and stores it as a new style: pieces Front and Back (and the
  * panels), each with version 1 whose recipe starts with
- * `{ op: 'draft', params: { measurementSetId, ease, options } }`. All or nothing: if a version is
+ * `{ op: 'draft', params: { measurementSetId, ease, options } }`, and the seam pairs between
+ * neighbouring panels (their divergence points are marked on the panels). All or nothing: if a version is
  * refused, the new style is removed again and the refusal is reported.
  */
 export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: string, req: BlockDraftRequest): Promise<DraftedStyle> {
@@ -77,6 +83,8 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 	}
 	const drafted = draftPieces(mm, ease, options);
 	if (!drafted.ok) throw new ApiError(422, 'draft_refused', `The block could not be drafted from "${set.name}": ${drafted.message}`);
+	// the seam pairs between neighbouring panels (the same pure draft, so the same panels)
+	const seams = options.underStructure === 'none' ? [] : draftedSeamPairs(underStructureDraft(mm, ease, { panels: options.underStructure }));
 	const params = { measurementSetId: set.id, ease, options };
 	const style = await stylesCreate(db, {
 		studioId,
@@ -92,6 +100,7 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 	const parts = ['front', 'back', ...drafted.pieces.slice(2).map((_, i) => `panel-${i + 1}`)];
 	const wanted: { name: string; geometry: Piece; part: string }[] = drafted.pieces.map((p, i) => ({ ...p, part: parts[i] }));
 	const out: DraftedStyle['pieces'] = [];
+	const stored = new Map<string, string>();
 	try {
 		for (const w of wanted) {
 			const r = await pieceCreateWithFirstVersion(db, {
@@ -108,6 +117,14 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 				throw new ApiError(422, 'draft_refused', `The drafted ${w.name} was refused: ${why}`);
 			}
 			out.push({ id: r.piece.id, name: w.name, versionId: r.version.id, versionNumber: r.version.number });
+			stored.set(w.geometry.id, r.piece.id);
+		}
+		// the seams between neighbouring panels, each with its divergence point marked on both panels
+		for (const sp of seams) {
+			const aPieceId = stored.get(sp.aPanelId);
+			const bPieceId = stored.get(sp.bPanelId);
+			if (!aPieceId || !bPieceId) throw new ApiError(422, 'draft_refused', `The drafted ${sp.label} names a panel that was not stored.`);
+			await seamPairsCreate(db, { styleId: style.id, label: sp.label, aPieceId, aEdge: sp.a, bPieceId, bEdge: sp.b, allowedEaseMm: 0, toleranceMm: DRAFTED_SEAM_TOLERANCE_MM });
 		}
 	} catch (e) {
 		await draftedStyleDiscard(db, studioId, style.id);

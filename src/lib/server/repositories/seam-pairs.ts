@@ -77,3 +77,9 @@ export async function seamPairsUpdate(
 		.returning(columns)
 		.executeTakeFirst() as Promise<SeamPairRow | undefined>;
 }
+
+/** Unpair: remove a seam pair of the style (the pieces themselves stay as they are). */
+export async function seamPairsDelete(db: DbOrTx, styleId: string, seamPairId: string): Promise<boolean> {
+	const r = await db.deleteFrom('seam_pairs').where('style_id', '=', styleId).where('id', '=', seamPairId).executeTakeFirst();
+	return Number(r.numDeletedRows) > 0;
+}

@@ -4,7 +4,7 @@ import { apiRoute, parseParams, readPatch } from '$lib/server/api';
 import { EDITORS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
-import { seamPairsInStyle, seamPairsUpdate } from '$lib/server/repositories/seam-pairs';
+import { seamPairsDelete, seamPairsInStyle, seamPairsUpdate } from '$lib/server/repositories/seam-pairs';
 import { uuidSchema } from '$lib/server/validation';
 import { styleOr404 } from '$lib/server/versions/access';
 import { seamPairPatchSchema } from '$lib/server/versions/schemas';
@@ -27,4 +27,13 @@ export const PATCH: RequestHandler = apiRoute(async (event) => {
 		toleranceMm: body.toleranceMm
 	});
 	return json({ seamPair: pair });
+});
+
+/** Unpair two seams: the pair is removed; its pieces and their versions stay as they are. */
+export const DELETE: RequestHandler = apiRoute(async (event) => {
+	const { studioId } = await requireRole(event, EDITORS);
+	const { styleId, seamPairId } = parseParams(event.params, params);
+	await styleOr404(db(), studioId, styleId);
+	if (!(await seamPairsDelete(db(), styleId, seamPairId))) throw new ApiError(404, 'not_found', 'No such seam pair in this style.');
+	return new Response(null, { status: 204 });
 });
