@@ -132,6 +132,11 @@ export async function seamPairCreate(
 	return call(`/api/studios/${studioId}/styles/${styleId}/seam-pairs`, { method: 'POST', body: JSON.stringify(body) });
 }
 
+/** Unpair: remove a stored seam pair (the pieces stay as they are). */
+export async function seamPairDelete(studioId: string, styleId: string, seamPairId: string): Promise<void> {
+	await call<null>(`/api/studios/${studioId}/styles/${styleId}/seam-pairs/${seamPairId}`, { method: 'DELETE' });
+}
+
 /** Move a stored seam pair's edge ends (after truing) or change its ease and tolerance. */
 export async function seamPairPatch(
 	studioId: string,

@@ -2,7 +2,7 @@ import { segmentFlatten, vecDistance, vecLerp, type Path, type Vec } from '$lib/
 import { carry, type SeamPair } from '$lib/pattern/panels';
 import type { EditorState } from '../editor-state.svelte';
 import { fmtDeg, fmtLength } from '../units';
-import { opPieces, storedPair } from './seams';
+import { opPieces, storedPair, storedPairUsable } from './seams';
 import { emptyPreview, type OverlayItem, type Readout, type ToolDef, type ToolPreview } from './types';
 
 /** The picked panels in seam order (centre front first) with the stored seam pairs between them. */
@@ -31,6 +31,30 @@ export function carryChain(s: EditorState): { keys: string[]; pairs: SeamPair[] 
 	}
 	if (keys.length !== picked.size) return 'The picked panels are not one row joined by seam pairs.';
 	return { keys, pairs };
+}
+
+/**
+ * The row of panels joined by stored seam pairs (each panel sewn to the next, centre front first): the
+ * row the selected piece is in, else the longest; empty when no seam pair joins two editable pieces.
+ */
+export function carryRow(s: EditorState): string[] {
+	const next = new Map<string, string>();
+	const isB = new Set<string>();
+	for (const sp of s.seamPairs) {
+		if (!storedPairUsable(s, sp, true) || sp.aPieceId === sp.bPieceId) continue;
+		if (next.has(sp.aPieceId) || isB.has(sp.bPieceId)) continue; // a fork: the first pair stored wins
+		next.set(sp.aPieceId, sp.bPieceId);
+		isB.add(sp.bPieceId);
+	}
+	const rows: string[][] = [];
+	for (const start of next.keys()) {
+		if (isB.has(start)) continue;
+		const row = [start];
+		while (next.has(row[row.length - 1]) && row.length <= next.size) row.push(next.get(row[row.length - 1])!);
+		rows.push(row);
+	}
+	const sel = s.selection.pieceKey;
+	return rows.find((r) => sel !== null && r.includes(sel)) ?? [...rows].sort((a, b) => b.length - a.length)[0] ?? [];
 }
 
 /** Panels laid at their own drafting coordinates (one shared offset), as carry needs them. */
@@ -75,16 +99,16 @@ export const carryTool: ToolDef = {
 	edits: true,
 	hint(s) {
 		const h = s.input.handles;
-		if (s.input.keys.length < 2) return 'Shift+click the panels to carry (or tick them in the form).';
+		if (s.input.keys.length < 2) return s.seamPairs.length ? 'Shift+click the panels to carry (or tick them in the form).' : 'No seam pairs join these pieces yet: pair the panel seams first (Join or True seam, then “Pair these seams”).';
 		if (h.length === 0) return 'Drag across the panels to draw the style line (or click its start, then its end).';
 		if (s.input.dragging) return 'Click where the style line ends.';
 		return 'Drag the ends or the round handles; watch the reach line and the residuals. Enter or Apply carries.';
 	},
 	start(s) {
-		// the panels of an under-structure: every editable piece marking a divergence point
-		s.input.keys = s.visible.filter((p) => !p.readOnly && p.geometry.apexes.some((a) => a.kind === 'divergence')).map((p) => p.key);
-		const c = carryChain(s);
-		if (typeof c !== 'string') s.input.keys = c.keys;
+		// the panels of one row, in seam order (only pieces the stored seam pairs join), laid as drafted
+		const row = carryRow(s);
+		s.input.keys = row;
+		if (row.length >= 2 && !panelsAsDrafted(s, row)) s.layAsDrafted(row);
 	},
 	down(s, p) {
 		if (p.shift) {

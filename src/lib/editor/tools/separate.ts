@@ -4,6 +4,7 @@ import { toolPiece } from './common';
 import { internalLineNear } from '../hit';
 import { editorSeparate } from '../ops';
 import { fmtArea } from '../units';
+import { divergenceProposals } from '../divergence-marking';
 
 /** Separate: cut a piece along one of its style lines into two pieces. */
 export const separateTool: ToolDef = {
@@ -45,7 +46,11 @@ export const separateTool: ToolDef = {
 			readouts: r.pieces.map((q, i) => ({ label: `Piece ${i + 1} area`, value: fmtArea(pieceMetrics(q).areaMm2, s.unit) })),
 			ledger: r.ledgerEntries,
 			overlay: [],
-			notes: [r.report.summary, ...r.report.notes],
+			notes: [
+				r.report.summary,
+				...r.report.notes,
+				...divergenceProposals(r.pieces).map((n) => `${n} will lie on the new seam: to carry or join the parts there, mark it as a divergence point (Shaping ledger, beside the point) after separating.`)
+			],
 			canCommit: true
 		};
 	}
