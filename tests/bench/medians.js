@@ -17,6 +17,10 @@ try {
 				const ms = (/** @type {number} */ v) => (v < 0.1 ? `${(v * 1000).toFixed(1)} µs` : `${v.toFixed(2)} ms`);
 				console.log(`  ${b.name.padEnd(44)} median ${ms(b.median).padStart(10)}   p75 ${ms(b.p75).padStart(10)}   (${b.sampleCount} samples)`);
 			}
+			// a group that runs the kernel beside a reference library ("kernel: …", "reference: …") gets the ratio
+			const kernel = group.benchmarks.find((/** @type {{ name: string }} */ b) => b.name.startsWith('kernel'));
+			const reference = group.benchmarks.find((/** @type {{ name: string }} */ b) => b.name.startsWith('reference'));
+			if (kernel && reference) console.log(`  ratio reference ÷ kernel (medians): ${(reference.median / kernel.median).toFixed(2)}`);
 		}
 	}
 } finally {

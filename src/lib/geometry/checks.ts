@@ -1,7 +1,7 @@
 import type { Outline, Vec } from './types';
-import { outlineSelfIntersections } from './intersect';
+import { outlineSelfIntersections } from './self-intersect';
 import { segmentLength } from './segment-length';
-import { segmentControlPoints, segmentEnd } from './segment';
+import { segmentEnd } from './segment';
 import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM, MIN_SEGMENT_LENGTH_MM } from './tolerance';
 
 /** Checks of an outline. They never throw: each returns a list of problems (empty = fine). */
@@ -30,11 +30,15 @@ const at = (p: Vec): string => `(${p.x.toFixed(1)}, ${p.y.toFixed(1)}) mm`;
 /** Segments with a NaN or infinite coordinate. */
 export function outlineNonFiniteProblems(outline: Outline): OutlineProblem[] {
 	const out: OutlineProblem[] = [];
-	outline.segments.forEach((s, i) => {
-		if (segmentControlPoints(s).some((p) => !Number.isFinite(p.x) || !Number.isFinite(p.y))) {
-			out.push({ code: 'not-finite', segmentIndex: i, message: `Segment ${i + 1} has a point with a missing or infinite coordinate.` });
-		}
-	});
+	const segs = outline.segments;
+	for (let i = 0; i < segs.length; i++) {
+		const s = segs[i];
+		// the sum is finite only if every coordinate is (NaN and ±Infinity fail the comparison)
+		const sum = s.kind === 'line'
+			? Math.abs(s.p0.x) + Math.abs(s.p0.y) + Math.abs(s.p1.x) + Math.abs(s.p1.y)
+			: Math.abs(s.p0.x) + Math.abs(s.p0.y) + Math.abs(s.p1.x) + Math.abs(s.p1.y) + Math.abs(s.p2.x) + Math.abs(s.p2.y) + Math.abs(s.p3.x) + Math.abs(s.p3.y);
+		if (!(sum < Infinity)) out.push({ code: 'not-finite', segmentIndex: i, message: `Segment ${i + 1} has a point with a missing or infinite coordinate.` });
+	}
 	return out;
 }
 
@@ -45,7 +49,10 @@ export function outlineClosureProblems(outline: Outline, tolerance = CLOSURE_TOL
 	for (let i = 0; i < segs.length; i++) {
 		const end = segmentEnd(segs[i]);
 		const next = segs[(i + 1) % segs.length].p0;
-		const gap = Math.hypot(end.x - next.x, end.y - next.y);
+		const gx = end.x - next.x;
+		const gy = end.y - next.y;
+		if (gx * gx + gy * gy <= tolerance * tolerance) continue;
+		const gap = Math.hypot(gx, gy);
 		if (!(gap <= tolerance) && Number.isFinite(gap)) {
 			const which = i + 1 === segs.length ? 'the outline does not close: the last segment ends' : `segment ${i + 1} ends`;
 			out.push({
@@ -62,7 +69,14 @@ export function outlineClosureProblems(outline: Outline, tolerance = CLOSURE_TOL
 /** Segments shorter than the minimum length. */
 export function outlineShortSegmentProblems(outline: Outline, minLength = MIN_SEGMENT_LENGTH_MM): OutlineProblem[] {
 	const out: OutlineProblem[] = [];
-	outline.segments.forEach((s, i) => {
+	const segs = outline.segments;
+	for (let i = 0; i < segs.length; i++) {
+		const s = segs[i];
+		// a curve is at least as long as its chord: it is measured only when the chord is short
+		const end = segmentEnd(s);
+		const cx = end.x - s.p0.x;
+		const cy = end.y - s.p0.y;
+		if (cx * cx + cy * cy >= minLength * minLength) continue;
 		const l = segmentLength(s);
 		if (l < minLength) {
 			out.push({
@@ -72,7 +86,7 @@ export function outlineShortSegmentProblems(outline: Outline, minLength = MIN_SE
 				message: `Segment ${i + 1} at ${at(s.p0)} is only ${fmt(l)} long (shorter than ${fmt(minLength)}); remove it or merge it with its neighbour.`
 			});
 		}
-	});
+	}
 	return out;
 }
 

@@ -21,6 +21,7 @@ export {
 	segmentSplitAtMany
 } from './split';
 export * from './intersect';
+export * from './self-intersect';
 export * from './point-in';
 export * from './checks';
 export * from './flatten';

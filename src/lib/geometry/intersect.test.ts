@@ -6,12 +6,11 @@ import {
 	outlinePolylineIntersections,
 	outlineRayIntersections,
 	outlineSegmentIntersections,
-	outlineSelfIntersections,
 	pathIntersections,
 	segmentIntersections,
-	segmentLineIntersections,
-	segmentSelfIntersection
+	segmentLineIntersections
 } from './intersect';
+import { outlineSelfIntersections, segmentSelfIntersection } from './self-intersect';
 import { segmentFlatten } from './flatten';
 import { outlineFromPolyline, pathFromPolyline } from './path';
 import { segmentPointAt } from './segment';

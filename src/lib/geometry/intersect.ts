@@ -1,7 +1,8 @@
 import type { CubicSegment, Path, Segment, SegmentChain, Vec } from './types';
-import { bernsteinCubicRoots, quadraticRoots } from './roots';
-import { segmentBetween, segmentDerivativeAt, segmentPointAt, segmentSplitAt } from './segment';
-import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM, PARAMETER_TOLERANCE, ROOT_TOLERANCE_MM } from './tolerance';
+import { bernsteinCubicRoots } from './roots';
+import { segmentPointAt } from './segment';
+import { chainBoxes, clamp01, ctrlBox, curveCurve } from './curve-curve';
+import { INTERSECTION_TOLERANCE_MM, PARAMETER_TOLERANCE, ROOT_TOLERANCE_MM } from './tolerance';
 
 /**
  * Intersections. Lines against curves are solved exactly (the cubic's signed distance to the line is
@@ -248,10 +249,6 @@ function lineLine(a: Segment & { kind: 'line' }, b: Segment & { kind: 'line' }, 
 	return [{ ta: t, tb: clamp01(tb), point: segmentPointAt(a, t) }];
 }
 
-function clamp01(t: number): number {
-	return t < 0 ? 0 : t > 1 ? 1 : t;
-}
-
 function lineCurve(line: Segment & { kind: 'line' }, curve: CubicSegment, tol: number, lineFirst: boolean): SegmentPairHit[] {
 	const dir = { x: line.p1.x - line.p0.x, y: line.p1.y - line.p0.y };
 	const len = Math.sqrt(dir.x * dir.x + dir.y * dir.y);
@@ -265,88 +262,6 @@ function lineCurve(line: Segment & { kind: 'line' }, curve: CubicSegment, tol: n
 	return out;
 }
 
-interface Box { minX: number; minY: number; maxX: number; maxY: number }
-function ctrlBox(c: CubicSegment): Box {
-	return {
-		minX: Math.min(c.p0.x, c.p1.x, c.p2.x, c.p3.x), minY: Math.min(c.p0.y, c.p1.y, c.p2.y, c.p3.y),
-		maxX: Math.max(c.p0.x, c.p1.x, c.p2.x, c.p3.x), maxY: Math.max(c.p0.y, c.p1.y, c.p2.y, c.p3.y)
-	};
-}
-
-/** Guards for overlapping (coincident) curves, whose intersection is a whole stretch, not points. */
-const MAX_SUBDIVISION_STEPS = 20000;
-const MAX_CANDIDATES = 64;
-
-function curveCurve(A: CubicSegment, B: CubicSegment, tol: number): SegmentPairHit[] {
-	const candidates: [number, number][] = [];
-	let steps = 0;
-	const leaf = Math.max(tol * 1000, 1e-5);
-	const rec = (a: CubicSegment, a0: number, a1: number, b: CubicSegment, b0: number, b1: number, depth: number): void => {
-		if (++steps > MAX_SUBDIVISION_STEPS || candidates.length >= MAX_CANDIDATES) return;
-		const ba = ctrlBox(a);
-		const bb = ctrlBox(b);
-		if (ba.minX > bb.maxX + tol || bb.minX > ba.maxX + tol || ba.minY > bb.maxY + tol || bb.minY > ba.maxY + tol) return;
-		const sa = Math.max(ba.maxX - ba.minX, ba.maxY - ba.minY);
-		const sb = Math.max(bb.maxX - bb.minX, bb.maxY - bb.minY);
-		if ((sa <= leaf && sb <= leaf) || depth > 48) {
-			candidates.push([0.5 * (a0 + a1), 0.5 * (b0 + b1)]);
-			return;
-		}
-		if (sa >= sb) {
-			const [l, r] = segmentSplitAt(a, 0.5) as [CubicSegment, CubicSegment];
-			const am = 0.5 * (a0 + a1);
-			rec(l, a0, am, b, b0, b1, depth + 1);
-			rec(r, am, a1, b, b0, b1, depth + 1);
-		} else {
-			const [l, r] = segmentSplitAt(b, 0.5) as [CubicSegment, CubicSegment];
-			const bm = 0.5 * (b0 + b1);
-			rec(a, a0, a1, l, b0, bm, depth + 1);
-			rec(a, a0, a1, r, bm, b1, depth + 1);
-		}
-	};
-	rec(A, 0, 1, B, 0, 1, 0);
-	const out: SegmentPairHit[] = [];
-	for (const [s0, t0] of candidates) {
-		const r = newtonPair(A, B, s0, t0);
-		const pa = segmentPointAt(A, r[0]);
-		const pb = segmentPointAt(B, r[1]);
-		const d = Math.hypot(pa.x - pb.x, pa.y - pb.y);
-		let ta = r[0], tb = r[1], p = pa;
-		if (!(d <= Math.max(tol, 1e-9))) {
-			// Newton failed (tangency): keep the leaf centre if it is close enough
-			const qa = segmentPointAt(A, s0);
-			const qb = segmentPointAt(B, t0);
-			if (Math.hypot(qa.x - qb.x, qa.y - qb.y) > leaf * 2) continue;
-			ta = s0; tb = t0; p = qa;
-		}
-		if (out.some((o) => Math.hypot(o.point.x - p.x, o.point.y - p.y) <= leaf * 2 && Math.abs(o.ta - ta) < 1e-5 && Math.abs(o.tb - tb) < 1e-5)) continue;
-		out.push({ ta, tb, point: p });
-	}
-	out.sort((p, q) => p.ta - q.ta);
-	return out;
-}
-
-function newtonPair(A: Segment, B: Segment, s: number, t: number): [number, number] {
-	for (let i = 0; i < 30; i++) {
-		const pa = segmentPointAt(A, s);
-		const pb = segmentPointAt(B, t);
-		const fx = pa.x - pb.x;
-		const fy = pa.y - pb.y;
-		if (Math.abs(fx) + Math.abs(fy) < 1e-13) break;
-		const da = segmentDerivativeAt(A, s);
-		const db = segmentDerivativeAt(B, t);
-		const det = -da.x * db.y + db.x * da.y;
-		if (Math.abs(det) < 1e-18) break;
-		// [da.x -db.x; da.y -db.y] [ds; dt] = -[fx; fy]
-		const ds = (-fx * -db.y - -db.x * -fy) / det;
-		const dt = (da.x * -fy - da.y * -fx) / det;
-		s = clamp01(s + ds);
-		t = clamp01(t + dt);
-		if (Math.abs(ds) + Math.abs(dt) < 1e-15) break;
-	}
-	return [s, t];
-}
-
 /** All intersections of two segments (ta on a, tb on b), sorted by ta. */
 export function segmentIntersections(a: Segment, b: Segment, tolerance = INTERSECTION_TOLERANCE_MM): SegmentPairHit[] {
 	if (a.kind === 'line' && b.kind === 'line') return lineLine(a, b, tolerance);
@@ -355,85 +270,7 @@ export function segmentIntersections(a: Segment, b: Segment, tolerance = INTERSE
 	return curveCurve(a as CubicSegment, b as CubicSegment, tolerance);
 }
 
-/**
- * Where a single cubic crosses itself (a loop), closed form: with B(t) = a t³ + b t² + c t + d,
- * B(s) = B(t), s ≠ t ⇔ a(σ² − π) + bσ + c = 0 with σ = s + t, π = s·t. Returns [] or one hit.
- */
-export function segmentSelfIntersection(s: Segment): SegmentPairHit[] {
-	if (s.kind === 'line') return [];
-	const { p0, p1, p2, p3 } = s;
-	const ax = -p0.x + 3 * p1.x - 3 * p2.x + p3.x, ay = -p0.y + 3 * p1.y - 3 * p2.y + p3.y;
-	const bx = 3 * p0.x - 6 * p1.x + 3 * p2.x, by = 3 * p0.y - 6 * p1.y + 3 * p2.y;
-	const cx = -3 * p0.x + 3 * p1.x, cy = -3 * p0.y + 3 * p1.y;
-	const den = bx * ay - by * ax;
-	if (Math.abs(den) < 1e-14) return [];
-	const sigma = (cy * ax - cx * ay) / den;
-	const pi = Math.abs(ax) >= Math.abs(ay) ? sigma * sigma + (bx * sigma + cx) / ax : sigma * sigma + (by * sigma + cy) / ay;
-	if (!Number.isFinite(pi)) return [];
-	const roots = quadraticRoots(1, -sigma, pi);
-	if (roots.length !== 2) return [];
-	const [t1, t2] = roots;
-	if (t1 < 0 || t2 > 1 || t2 - t1 < 1e-9) return [];
-	return [{ ta: t1, tb: t2, point: segmentPointAt(s, t1) }];
-}
-
 // ---------------------------------------------------------------- chains
-
-interface IndexedBox extends Box { i: number }
-
-/**
- * Calls `visit` once for every pair of overlapping boxes, using a uniform grid (about one cell per
- * box), so that the cost stays near-linear for outlines whose boxes are small relative to the whole.
- */
-function boxPairs(boxes: readonly IndexedBox[], visit: (a: IndexedBox, b: IndexedBox) => void): void {
-	const n = boxes.length;
-	if (n < 2) return;
-	let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-	for (const b of boxes) {
-		if (b.minX < minX) minX = b.minX; if (b.minY < minY) minY = b.minY;
-		if (b.maxX > maxX) maxX = b.maxX; if (b.maxY > maxY) maxY = b.maxY;
-	}
-	const side = Math.max(1, Math.min(1024, Math.ceil(Math.sqrt(n))));
-	const cw = (maxX - minX) / side || 1;
-	const ch = (maxY - minY) / side || 1;
-	const col = (x: number): number => Math.min(side - 1, Math.max(0, Math.floor((x - minX) / cw)));
-	const row = (y: number): number => Math.min(side - 1, Math.max(0, Math.floor((y - minY) / ch)));
-	const cells: (IndexedBox[] | undefined)[] = new Array(side * side);
-	for (const b of boxes) {
-		const c0 = col(b.minX), c1 = col(b.maxX), r0 = row(b.minY), r1 = row(b.maxY);
-		for (let r = r0; r <= r1; r++) {
-			for (let c = c0; c <= c1; c++) {
-				const k = r * side + c;
-				(cells[k] ??= []).push(b);
-			}
-		}
-	}
-	for (let k = 0; k < cells.length; k++) {
-		const list = cells[k];
-		if (!list || list.length < 2) continue;
-		const r = Math.floor(k / side);
-		const c = k - r * side;
-		for (let u = 0; u < list.length; u++) {
-			const a = list[u];
-			for (let v = u + 1; v < list.length; v++) {
-				const b = list[v];
-				if (a.minX > b.maxX || b.minX > a.maxX || a.minY > b.maxY || b.minY > a.maxY) continue;
-				// visit the pair only in the cell holding the low corner of the overlap
-				if (col(Math.max(a.minX, b.minX)) !== c || row(Math.max(a.minY, b.minY)) !== r) continue;
-				visit(a, b);
-			}
-		}
-	}
-}
-
-function chainBoxes(chain: SegmentChain, margin: number): IndexedBox[] {
-	return chain.segments.map((s, i) => {
-		const b = s.kind === 'line'
-			? { minX: Math.min(s.p0.x, s.p1.x), minY: Math.min(s.p0.y, s.p1.y), maxX: Math.max(s.p0.x, s.p1.x), maxY: Math.max(s.p0.y, s.p1.y) }
-			: ctrlBox(s);
-		return { minX: b.minX - margin, minY: b.minY - margin, maxX: b.maxX + margin, maxY: b.maxY + margin, i };
-	});
-}
 
 /** All crossings of two chains (outline/path against outline/path), bounding-box rejection first. */
 export function pathIntersections(a: SegmentChain, b: SegmentChain, tolerance = INTERSECTION_TOLERANCE_MM): ChainHit[] {
@@ -473,66 +310,3 @@ export function pathIntersections(a: SegmentChain, b: SegmentChain, tolerance = 
 }
 
 export const outlinePathIntersections = pathIntersections;
-
-/**
- * Places where an outline crosses or touches itself (other than consecutive segments meeting at
- * their shared vertex). Uniform grid over segment bounding boxes, then exact segment–segment tests, plus
- * loops inside single cubics. `closed` = treat last and first segments as neighbours.
- */
-export function outlineSelfIntersections(chain: SegmentChain, closed = true, tolerance = INTERSECTION_TOLERANCE_MM, vertexTolerance = CLOSURE_TOLERANCE_MM): ChainHit[] {
-	const segs = chain.segments;
-	const n = segs.length;
-	const out: ChainHit[] = [];
-	for (let i = 0; i < n; i++) {
-		for (const h of segmentSelfIntersection(segs[i])) out.push({ segmentIndex: i, t: h.ta, otherSegmentIndex: i, otherT: h.tb, point: h.point });
-	}
-	const boxes = chainBoxes(chain, tolerance);
-	boxPairs(boxes, (x, y) => {
-		{
-			const i = Math.min(x.i, y.i);
-			const j = Math.max(x.i, y.i);
-			const nextOfI = j === i + 1;
-			const wrap = closed && i === 0 && j === n - 1 && n > 1;
-			const si = segs[i];
-			const sj = segs[j];
-			const endI = si.kind === 'line' ? si.p1 : si.p3;
-			const hits = (nextOfI || wrap) && si.kind === 'cubic' && sj.kind === 'cubic'
-				? neighbourCubicHits(si, sj, nextOfI, wrap, tolerance, vertexTolerance)
-				: segmentIntersections(si, sj, tolerance);
-			for (const h of hits) {
-				// consecutive segments meet at their shared vertex: not a self-intersection
-				if (nextOfI && Math.hypot(h.point.x - endI.x, h.point.y - endI.y) <= vertexTolerance && h.ta > 0.5 && h.tb < 0.5) continue;
-				if (wrap && Math.hypot(h.point.x - si.p0.x, h.point.y - si.p0.y) <= vertexTolerance && h.ta < 0.5 && h.tb > 0.5) continue;
-				out.push({ segmentIndex: i, t: h.ta, otherSegmentIndex: j, otherT: h.tb, point: h.point });
-			}
-		}
-	});
-	out.sort((p, q) => p.segmentIndex - q.segmentIndex || p.t - q.t);
-	return out;
-}
-
-/** Parameter span at a cubic's end that stays within `distance` of that end (|B'| ≤ 3·longest leg). */
-function endSpan(c: CubicSegment, distance: number): number {
-	const leg = Math.max(
-		Math.hypot(c.p1.x - c.p0.x, c.p1.y - c.p0.y),
-		Math.hypot(c.p2.x - c.p1.x, c.p2.y - c.p1.y),
-		Math.hypot(c.p3.x - c.p2.x, c.p3.y - c.p2.y)
-	);
-	return leg === 0 ? 0 : Math.min(0.25, distance / (3 * leg));
-}
-
-/**
- * Crossings of two neighbouring cubics away from their shared vertex: the bits within
- * `vertexTolerance` of the shared vertex are cut off first, so the subdivision does not dig into
- * the (ignored) touching point. Parameters are mapped back to the whole segments.
- */
-function neighbourCubicHits(a: CubicSegment, b: CubicSegment, aEndMeetsBStart: boolean, bEndMeetsAStart: boolean, tol: number, vertexTolerance: number): SegmentPairHit[] {
-	const ea = endSpan(a, vertexTolerance * 0.5);
-	const eb = endSpan(b, vertexTolerance * 0.5);
-	const a0 = bEndMeetsAStart ? ea : 0;
-	const a1 = aEndMeetsBStart ? 1 - ea : 1;
-	const b0 = aEndMeetsBStart ? eb : 0;
-	const b1 = bEndMeetsAStart ? 1 - eb : 1;
-	const hits = curveCurve(segmentBetween(a, a0, a1) as CubicSegment, segmentBetween(b, b0, b1) as CubicSegment, tol);
-	return hits.map((h) => ({ ta: a0 + h.ta * (a1 - a0), tb: b0 + h.tb * (b1 - b0), point: h.point }));
-}

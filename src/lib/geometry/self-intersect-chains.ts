@@ -1,0 +1,308 @@
+import type { Segment } from './types';
+
+/**
+ * Candidate segment pairs for the self-crossing search of an outline or path, by monotone chains.
+ *
+ * Every segment is cut where its x or its y turns (a line is one piece; a cubic is cut at the roots
+ * of x′ and y′, at most five pieces), so each piece is monotone in both coordinates and its box is the
+ * box of its two ends. The pieces, in order, are grouped into chains along which one coordinate (the
+ * "along" axis a: y or x, whichever gives fewer chains) never turns back. Two pieces of one chain lie
+ * in successive ranges of a, so they can come close only where those ranges meet: the search walks
+ * each chain once for that, and compares two chains only when their boxes meet, by walking both in
+ * order of a (a merge). A pattern piece has a handful of chains, so the search is linear in the number
+ * of segments. Outlines with very many chains (zigzags, deep scallops) answer null and are left to the
+ * general search (a uniform grid, self-intersect.ts).
+ *
+ * A pair is a candidate when some piece of one comes within `2·reach` of some piece of the other
+ * (boxes grown by `reach`), where `reach` is the farthest apart two segments can be and still be
+ * reported as touching. The one pair left out on purpose: two consecutive pieces of one chain that
+ * meet at the shared vertex of two neighbouring segments and go on the same way in both coordinates
+ * (`skipJoins`). Each lies in the quarter-plane box on its side of the vertex, so whatever the two have
+ * within `reach` of each other lies within `reach` of the vertex, where the caller ignores touching.
+ */
+
+const MAX_CHAINS = 1024;
+/** Give up (answer null) when the chain comparisons cost more than this many times the piece count. */
+const WORK_PER_PIECE = 16;
+
+interface Pieces {
+	readonly count: number;
+	readonly seg: Int32Array;
+	readonly x0: Float64Array;
+	readonly y0: Float64Array;
+	readonly x1: Float64Array;
+	readonly y1: Float64Array;
+}
+
+interface Chain {
+	/** The chain's pieces are order[from … to − 1], in increasing a. */
+	readonly from: number;
+	readonly to: number;
+	readonly lo: number;
+	readonly hi: number;
+	readonly crossLo: number;
+	readonly crossHi: number;
+}
+
+/** Ranges of every piece along a and across it (c), grown by the reach. */
+interface Ranges {
+	readonly aLo: Float64Array;
+	readonly aHi: Float64Array;
+	readonly cLo: Float64Array;
+	readonly cHi: Float64Array;
+}
+
+const near = (g: Ranges, p: number, q: number): boolean =>
+	g.cLo[q] <= g.cHi[p] && g.cLo[p] <= g.cHi[q] && g.aLo[q] <= g.aHi[p] && g.aLo[p] <= g.aHi[q];
+
+/** Collects candidate pairs as keys i·n + j (i < j); duplicates are removed at the end. */
+class PairKeys {
+	keys = new Float64Array(64);
+	count = 0;
+	constructor(readonly seg: Int32Array, readonly n: number) {}
+	add(p: number, q: number): void {
+		const a = this.seg[p];
+		const b = this.seg[q];
+		if (a === b) return;
+		if (this.count === this.keys.length) {
+			const k2 = new Float64Array(this.keys.length * 2);
+			k2.set(this.keys);
+			this.keys = k2;
+		}
+		this.keys[this.count++] = a < b ? a * this.n + b : b * this.n + a;
+	}
+	pairs(): number[] {
+		const k = this.keys.subarray(0, this.count).sort();
+		const out: number[] = [];
+		for (let t = 0; t < k.length; t++) {
+			if (t > 0 && k[t] === k[t - 1]) continue;
+			const i = Math.floor(k[t] / this.n);
+			out.push(i, k[t] - i * this.n);
+		}
+		return out;
+	}
+}
+
+/** Pieces monotone in x and in y, in outline order; null if a coordinate is not finite. */
+function monotonePieces(segs: readonly Segment[]): Pieces | null {
+	const turns = new Float64Array(4);
+	let cap = 0;
+	for (const s of segs) cap += s.kind === 'line' ? 1 : 1 + cubicTurns(s, turns);
+	const seg = new Int32Array(cap);
+	const x0 = new Float64Array(cap);
+	const y0 = new Float64Array(cap);
+	const x1 = new Float64Array(cap);
+	const y1 = new Float64Array(cap);
+	let m = 0;
+	for (let i = 0; i < segs.length; i++) {
+		const s = segs[i];
+		seg[m] = i;
+		x0[m] = s.p0.x;
+		y0[m] = s.p0.y;
+		if (s.kind === 'line') {
+			x1[m] = s.p1.x;
+			y1[m++] = s.p1.y;
+			continue;
+		}
+		const k = cubicTurns(s, turns);
+		for (let q = 0; q < k; q++) {
+			const t = turns[q];
+			const mt = 1 - t;
+			const b0 = mt * mt * mt, b1 = 3 * mt * mt * t, b2 = 3 * mt * t * t, b3 = t * t * t;
+			const qx = b0 * s.p0.x + b1 * s.p1.x + b2 * s.p2.x + b3 * s.p3.x;
+			const qy = b0 * s.p0.y + b1 * s.p1.y + b2 * s.p2.y + b3 * s.p3.y;
+			x1[m] = qx;
+			y1[m++] = qy;
+			seg[m] = i;
+			x0[m] = qx;
+			y0[m] = qy;
+		}
+		x1[m] = s.p3.x;
+		y1[m++] = s.p3.y;
+	}
+	for (let p = 0; p < m; p++) {
+		// written so that NaN fails too
+		if (!(Math.abs(x0[p]) + Math.abs(y0[p]) + Math.abs(x1[p]) + Math.abs(y1[p]) < Infinity)) return null;
+	}
+	return { count: m, seg, x0, y0, x1, y1 };
+}
+
+/**
+ * Parameters in (0, 1) where x or y of a cubic turns (roots of the derivative), written in increasing
+ * order into `out` without repeats; returns how many. A coordinate whose control values are monotone
+ * cannot turn and is not solved.
+ */
+function cubicTurns(s: Segment & { kind: 'cubic' }, out: Float64Array): number {
+	let k = axisTurns(s.p0.x, s.p1.x, s.p2.x, s.p3.x, out, 0);
+	k = axisTurns(s.p0.y, s.p1.y, s.p2.y, s.p3.y, out, k);
+	// sort (at most four) and drop repeats
+	for (let a = 1; a < k; a++) {
+		const v = out[a];
+		let b = a - 1;
+		while (b >= 0 && out[b] > v) {
+			out[b + 1] = out[b];
+			b--;
+		}
+		out[b + 1] = v;
+	}
+	let w = 0;
+	for (let a = 0; a < k; a++) if (w === 0 || out[a] > out[w - 1]) out[w++] = out[a];
+	return w;
+}
+
+/** Roots in (0, 1) of one coordinate's derivative (as the kernel's quadraticRoots), appended at out[k]. */
+function axisTurns(a: number, b: number, c: number, d: number, out: Float64Array, k: number): number {
+	const e0 = b - a, e1 = c - b, e2 = d - c;
+	if ((e0 >= 0 && e1 >= 0 && e2 >= 0) || (e0 <= 0 && e1 <= 0 && e2 <= 0)) return k;
+	const A = e0 - 2 * e1 + e2;
+	const B = 2 * (e1 - e0);
+	const C = e0;
+	const scale = Math.max(Math.abs(A), Math.abs(B), Math.abs(C));
+	let r1 = NaN;
+	let r2 = NaN;
+	if (Math.abs(A) <= 1e-12 * scale) {
+		if (Math.abs(B) > 1e-14 * scale) r1 = -C / B;
+	} else {
+		const disc = B * B - 4 * A * C;
+		if (disc < 0) {
+			if (disc > -1e-14 * B * B) r1 = -B / (2 * A);
+		} else {
+			const sq = Math.sqrt(disc);
+			const q = -0.5 * (B + (B >= 0 ? sq : -sq));
+			r1 = q / A;
+			r2 = q !== 0 ? C / q : r1;
+		}
+	}
+	// NaN fails both comparisons
+	if (r1 > 0 && r1 < 1) out[k++] = r1;
+	if (r2 > 0 && r2 < 1) out[k++] = r2;
+	return k;
+}
+
+const sign = (v: number): number => (v > 0 ? 1 : v < 0 ? -1 : 0);
+
+/**
+ * Where chains start (piece indices), along coordinate a (c across it). A piece flat in a does not
+ * turn a chain, but a run of flat pieces must keep going the same way along c.
+ */
+function chainStarts(a0: Float64Array, a1: Float64Array, c0: Float64Array, c1: Float64Array, m: number): number[] {
+	const starts = [0];
+	let dir = 0;
+	let lastFlatDir = 0;
+	for (let p = 0; p < m; p++) {
+		const sd = sign(a1[p] - a0[p]);
+		if (sd === 0) {
+			const od = sign(c1[p] - c0[p]);
+			if (lastFlatDir !== 0 && od !== lastFlatDir && p > starts[starts.length - 1]) {
+				starts.push(p);
+				dir = 0;
+			}
+			lastFlatDir = od;
+			continue;
+		}
+		lastFlatDir = 0;
+		if (dir === 0) dir = sd;
+		else if (sd !== dir) {
+			starts.push(p);
+			dir = sd;
+		}
+		if (starts.length > MAX_CHAINS) break;
+	}
+	return starts;
+}
+
+/**
+ * Candidate pairs of segment indices [i0, j0, i1, j1, …] (i < j, each pair once) whose pieces come
+ * within 2·reach of each other, or null when the outline has too many chains for this search.
+ */
+export function monotoneChainPairs(segs: readonly Segment[], reach: number, skipJoins: boolean): number[] | null {
+	const pieces = monotonePieces(segs);
+	if (!pieces) return null;
+	const m = pieces.count;
+	const { seg, x0, y0, x1, y1 } = pieces;
+	const sy = chainStarts(y0, y1, x0, x1, m);
+	const sx = chainStarts(x0, x1, y0, y1, m);
+	const alongY = sy.length <= sx.length;
+	const starts = alongY ? sy : sx;
+	if (starts.length > MAX_CHAINS) return null;
+	const [A0, A1, C0, C1] = alongY ? [y0, y1, x0, x1] : [x0, x1, y0, y1];
+	const aLo = new Float64Array(m), aHi = new Float64Array(m), cLo = new Float64Array(m), cHi = new Float64Array(m);
+	for (let p = 0; p < m; p++) {
+		aLo[p] = Math.min(A0[p], A1[p]) - reach;
+		aHi[p] = Math.max(A0[p], A1[p]) + reach;
+		cLo[p] = Math.min(C0[p], C1[p]) - reach;
+		cHi[p] = Math.max(C0[p], C1[p]) + reach;
+	}
+	const found = new PairKeys(seg, segs.length);
+	let work = 0;
+	const budget = WORK_PER_PIECE * m + 1024;
+
+	const g: Ranges = { aLo, aHi, cLo, cHi };
+	const order = new Int32Array(m);
+	const chains: Chain[] = [];
+	for (let c = 0; c < starts.length; c++) {
+		const from = starts[c];
+		const to = c + 1 < starts.length ? starts[c + 1] : m;
+		const rising = A1[to - 1] >= A0[from];
+		let lo = Infinity, hi = -Infinity, crossLo = Infinity, crossHi = -Infinity;
+		for (let p = from; p < to; p++) {
+			order[p] = rising ? p : to - 1 - (p - from);
+			lo = Math.min(lo, aLo[p]);
+			hi = Math.max(hi, aHi[p]);
+			crossLo = Math.min(crossLo, cLo[p]);
+			crossHi = Math.max(crossHi, cHi[p]);
+		}
+		chains.push({ from, to, lo, hi, crossLo, crossHi });
+		// within the chain: each piece against the ones that follow it while their ranges of a still meet
+		for (let k = from; k < to; k++) {
+			const p = order[k];
+			for (let r = k + 1; r < to; r++) {
+				const q = order[r];
+				if (r > k + 1 && aLo[q] > aHi[p]) break;
+				if (++work > budget) return null;
+				if (seg[p] === seg[q] || !near(g, p, q)) continue;
+				if (r === k + 1 && skipJoins && joinGoesOn(pieces, Math.min(p, q), Math.max(p, q))) continue;
+				found.add(p, q);
+			}
+		}
+	}
+
+	// pairs of chains whose boxes meet, each compared by a merge along a
+	chains.sort((p, q) => p.lo - q.lo);
+	for (let a = 0; a < chains.length; a++) {
+		const A = chains[a];
+		for (let b = a + 1; b < chains.length && chains[b].lo <= A.hi; b++) {
+			const B = chains[b];
+			if (++work > budget) return null;
+			if (A.crossHi < B.crossLo || B.crossHi < A.crossLo) continue;
+			work += A.to - A.from + B.to - B.from;
+			if (work > budget) return null;
+			mergeChains(A, B, order, g, found);
+		}
+	}
+	return found.pairs();
+}
+
+/** Piece pairs of two chains whose ranges of a meet (both walked in order of a). */
+function mergeChains(A: Chain, B: Chain, order: Int32Array, g: Ranges, found: PairKeys): void {
+	let j0 = B.from;
+	for (let k = A.from; k < A.to; k++) {
+		const p = order[k];
+		while (j0 < B.to && g.aHi[order[j0]] < g.aLo[p]) j0++;
+		for (let r = j0; r < B.to; r++) {
+			const q = order[r];
+			if (g.aLo[q] > g.aHi[p]) break;
+			if (near(g, p, q)) found.add(p, q);
+		}
+	}
+}
+
+/**
+ * Pieces p and p + 1 end and start at the same point, the shared vertex of two neighbouring segments,
+ * and go on the same way in x and in y (either may stand still in one).
+ */
+function joinGoesOn(pc: Pieces, p: number, q: number): boolean {
+	if (q !== p + 1 || pc.seg[q] !== pc.seg[p] + 1) return false;
+	if (Math.abs(pc.x1[p] - pc.x0[q]) > 1e-9 || Math.abs(pc.y1[p] - pc.y0[q]) > 1e-9) return false;
+	return sign(pc.x1[p] - pc.x0[p]) * sign(pc.x1[q] - pc.x0[q]) >= 0 && sign(pc.y1[p] - pc.y0[p]) * sign(pc.y1[q] - pc.y0[q]) >= 0;
+}
