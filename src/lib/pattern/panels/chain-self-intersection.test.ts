@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { outlineFromPolyline, outlineSelfIntersections, type Vec } from '../kernel';
+import { outlineFromPolyline, outlineSelfIntersectionsByGrid, type Vec } from '../kernel';
 import { chainSelfIntersection } from './chain-self-intersection';
 import { straightCoords, straightSelfIntersection } from './fast-checks';
 
 /**
  * The monotone-chain self-crossing search is checked against the kernel's general search
- * (outlineSelfIntersections, a box grid with exact segment tests) on random outlines, including
+ * (outlineSelfIntersectionsByGrid, a box grid with exact segment tests) on random outlines, including
  * outlines snapped to a coarse grid so that they have flat runs, collinear overlaps and touching
  * vertices.
  */
@@ -38,7 +38,7 @@ describe('monotone-chain self-crossing search', () => {
 		fc.assert(
 			fc.property(fc.integer({ min: 50, max: 600 }), fc.double({ min: 0, max: 0.7, noNaN: true }), fc.integer({ min: 1, max: 9 }), fc.double({ min: 0, max: 250, noNaN: true }), (n, wobble, lobes, spike) => {
 				const o = outlineFromPolyline(radialPolygon(n, wobble, lobes, spike));
-				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersections(o).length > 0);
+				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 			}),
 			{ numRuns: 80, seed: 11 }
 		);
@@ -50,7 +50,7 @@ describe('monotone-chain self-crossing search', () => {
 				const pts = snapped(radialPolygon(n, wobble, lobes, 0), step);
 				fc.pre(pts.length >= 4);
 				const o = outlineFromPolyline(pts);
-				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersections(o).length > 0);
+				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 			}),
 			{ numRuns: 120, seed: 5 }
 		);
@@ -63,7 +63,7 @@ describe('monotone-chain self-crossing search', () => {
 				const pts = snapped(raw.map((p) => ({ x: p.x * 5, y: p.y * 5 })), 5);
 				fc.pre(pts.length >= 4);
 				const o = outlineFromPolyline(pts);
-				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersections(o).length > 0);
+				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 			}),
 			{ numRuns: 400, seed: 3 }
 		);
@@ -76,7 +76,7 @@ describe('monotone-chain self-crossing search', () => {
 				const pts = raw.filter((p) => p.x !== 0 || p.y !== 0).sort((p, q) => Math.atan2(p.y, p.x) - Math.atan2(q.y, q.x) || Math.hypot(p.x, p.y) - Math.hypot(q.x, q.y));
 				fc.pre(pts.length >= 4);
 				const o = outlineFromPolyline(pts);
-				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersections(o).length > 0);
+				expect(straightSelfIntersection(o).length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 			}),
 			{ numRuns: 300, seed: 9 }
 		);
@@ -109,7 +109,7 @@ describe('monotone-chain self-crossing search', () => {
 			{ x: 0, y: -10 }
 		]);
 		expect(straightSelfIntersection(o).length).toBeGreaterThan(0);
-		expect(outlineSelfIntersections(o).length).toBeGreaterThan(0);
+		expect(outlineSelfIntersectionsByGrid(o).length).toBeGreaterThan(0);
 	});
 
 	it('finds a zero-width spike (a segment turning straight back)', () => {
@@ -123,7 +123,7 @@ describe('monotone-chain self-crossing search', () => {
 			{ x: 0, y: 40 }
 		]);
 		expect(straightSelfIntersection(o).length).toBeGreaterThan(0);
-		expect(outlineSelfIntersections(o).length).toBeGreaterThan(0);
+		expect(outlineSelfIntersectionsByGrid(o).length).toBeGreaterThan(0);
 	});
 
 	it('leaves outlines with very many chains to the grid search, which still finds a crossing', () => {
@@ -147,7 +147,7 @@ describe('monotone-chain self-crossing search', () => {
 		const o = outlineFromPolyline(pts);
 		const found = chainSelfIntersection(straightCoords(o)!);
 		expect(found).not.toBeNull();
-		expect(found!.length > 0).toBe(outlineSelfIntersections(o).length > 0);
+		expect(found!.length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 		expect(found!.length).toBeGreaterThan(0);
 	});
 });

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { outlineFromPolyline, outlineSelfIntersections, type Vec } from '../kernel';
+import { outlineFromPolyline, outlineSelfIntersectionsByGrid, type Vec } from '../kernel';
 import { gridSelfIntersection } from './fast-checks';
 
 describe('grid self-intersection check', () => {
-	it('agrees with the kernel (outlineSelfIntersections) on random 400–800-vertex polygons, crossing or not', () => {
+	it('agrees with the kernel’s general search (outlineSelfIntersectionsByGrid) on random 400–800-vertex polygons, crossing or not', () => {
 		fc.assert(
 			fc.property(fc.integer({ min: 400, max: 800 }), fc.double({ min: 0, max: 0.6, noNaN: true }), fc.integer({ min: 2, max: 9 }), (n, wobble, lobes) => {
 				const pts: Vec[] = [];
@@ -15,7 +15,7 @@ describe('grid self-intersection check', () => {
 					pts.push({ x: r * Math.cos(a), y: r * Math.sin(a) });
 				}
 				const o = outlineFromPolyline(pts);
-				expect(gridSelfIntersection(o).length > 0).toBe(outlineSelfIntersections(o).length > 0);
+				expect(gridSelfIntersection(o).length > 0).toBe(outlineSelfIntersectionsByGrid(o).length > 0);
 			}),
 			{ numRuns: 40, seed: 7 }
 		);
