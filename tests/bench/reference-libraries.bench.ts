@@ -77,7 +77,11 @@ describe(`length, ${n}-vertex polygon`, () => {
 	bench('kernel: outlinePerimeter', () => { sink += outlinePerimeter(poly); });
 	bench('reference: @flatten-js/core sum of edge lengths', () => {
 		let s = 0;
-		for (const e of flatFace) s += (e as Flatten.PolygonEdge).length;
+		let e: Flatten.Edge = flatFace.first;
+		do {
+			s += e.length;
+			e = e.next;
+		} while (e !== flatFace.first);
 		sink += s;
 	});
 });

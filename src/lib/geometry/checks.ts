@@ -109,11 +109,40 @@ export function outlineSelfIntersectionProblems(outline: Outline, tolerance = IN
  */
 export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}): OutlineProblem[] {
 	if (outline.segments.length === 0) return [{ code: 'empty', message: 'The outline has no segments.' }];
+	const closure = tolerances.closure ?? CLOSURE_TOLERANCE_MM;
+	const minLength = tolerances.minSegmentLength ?? MIN_SEGMENT_LENGTH_MM;
+	const intersection = tolerances.intersection ?? INTERSECTION_TOLERANCE_MM;
+	if (plainlyClean(outline, closure, minLength)) return outlineSelfIntersectionProblems(outline, intersection);
 	const nonFinite = outlineNonFiniteProblems(outline);
 	if (nonFinite.length > 0) return nonFinite;
 	return [
-		...outlineClosureProblems(outline, tolerances.closure ?? CLOSURE_TOLERANCE_MM),
-		...outlineShortSegmentProblems(outline, tolerances.minSegmentLength ?? MIN_SEGMENT_LENGTH_MM),
-		...outlineSelfIntersectionProblems(outline, tolerances.intersection ?? INTERSECTION_TOLERANCE_MM)
+		...outlineClosureProblems(outline, closure),
+		...outlineShortSegmentProblems(outline, minLength),
+		...outlineSelfIntersectionProblems(outline, intersection)
 	];
+}
+
+/**
+ * One lean pass that answers true only when the single checks would find nothing: every coordinate
+ * finite, every gap within the closure tolerance, every chord at least the shortest length (a curve is
+ * at least as long as its chord). Anything else goes through the single checks, for their messages.
+ */
+function plainlyClean(outline: Outline, closure: number, minLength: number): boolean {
+	const segs = outline.segments;
+	const n = segs.length;
+	const gap2 = closure * closure;
+	const min2 = minLength * minLength;
+	for (let i = 0; i < n; i++) {
+		const s = segs[i];
+		const end = s.kind === 'line' ? s.p1 : s.p3;
+		const next = segs[i + 1 === n ? 0 : i + 1].p0;
+		const gx = end.x - next.x;
+		const gy = end.y - next.y;
+		const cx = end.x - s.p0.x;
+		const cy = end.y - s.p0.y;
+		// written so that NaN and ±Infinity fail
+		if (!(gx * gx + gy * gy <= gap2) || !(cx * cx + cy * cy >= min2 && cx * cx + cy * cy < Infinity)) return false;
+		if (s.kind === 'cubic' && !(Math.abs(s.p1.x) + Math.abs(s.p1.y) + Math.abs(s.p2.x) + Math.abs(s.p2.y) < Infinity)) return false;
+	}
+	return true;
 }

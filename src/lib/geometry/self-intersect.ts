@@ -1,4 +1,4 @@
-import type { CubicSegment, Segment, SegmentChain } from './types';
+import type { CubicSegment, LineSegment, Segment, SegmentChain } from './types';
 import { chainBoxes, curveCurve, touchReach, type IndexedBox } from './curve-curve';
 import { segmentIntersections, type ChainHit, type SegmentPairHit } from './intersect';
 import { quadraticRoots } from './roots';
@@ -100,6 +100,32 @@ function loopHits(segs: readonly Segment[]): ChainHit[] {
 	return out;
 }
 
+/**
+ * False when two straight segments certainly give segmentIntersections nothing that pairHits keeps, so
+ * the exact test can be skipped: one lies wholly on one side of the other's line, farther than the
+ * tolerance (no crossing, no touching, no overlap); or they are neighbours meeting at one shared point
+ * at an angle, where the only crossing is that shared vertex (lineLine finds it at ta = 1, tb = 0
+ * exactly: the same products cancel), which pairHits drops.
+ */
+function linesMayTouch(a: LineSegment, b: LineSegment, nextOfA: boolean, bEndIsAStart: boolean, tolerance: number, vertexTolerance: number): boolean {
+	const rx = a.p1.x - a.p0.x, ry = a.p1.y - a.p0.y;
+	const sx = b.p1.x - b.p0.x, sy = b.p1.y - b.p0.y;
+	const rl = Math.sqrt(rx * rx + ry * ry);
+	const sl = Math.sqrt(sx * sx + sy * sy);
+	if (rl === 0 || sl === 0) return true;
+	const margin = 2 * tolerance;
+	// b against a's line, a against b's line (cross products = signed distance × length)
+	const b0 = rx * (b.p0.y - a.p0.y) - ry * (b.p0.x - a.p0.x);
+	const b1 = rx * (b.p1.y - a.p0.y) - ry * (b.p1.x - a.p0.x);
+	if ((b0 > margin * rl && b1 > margin * rl) || (b0 < -margin * rl && b1 < -margin * rl)) return false;
+	const a0 = sx * (a.p0.y - b.p0.y) - sy * (a.p0.x - b.p0.x);
+	const a1 = sx * (a.p1.y - b.p0.y) - sy * (a.p1.x - b.p0.x);
+	if ((a0 > margin * sl && a1 > margin * sl) || (a0 < -margin * sl && a1 < -margin * sl)) return false;
+	const shared = (nextOfA && a.p1.x === b.p0.x && a.p1.y === b.p0.y) || (bEndIsAStart && b.p1.x === a.p0.x && b.p1.y === a.p0.y);
+	const atAnAngle = Math.abs(rx * sy - ry * sx) > 1e-12 * rl * sl;
+	return !(shared && atAnAngle && vertexTolerance >= 1e-9);
+}
+
 const monotone = (a: number, b: number, c: number, d: number): boolean => (a <= b && b <= c && c <= d) || (a >= b && b >= c && c >= d);
 
 /** Crossings of segments i < j, without the touching of neighbours at their shared vertex. */
@@ -109,6 +135,7 @@ function pairHits(segs: readonly Segment[], i: number, j: number, closed: boolea
 	const wrap = closed && i === 0 && j === n - 1 && n > 1;
 	const si = segs[i];
 	const sj = segs[j];
+	if (si.kind === 'line' && sj.kind === 'line' && !linesMayTouch(si, sj, nextOfI, wrap, tolerance, vertexTolerance)) return;
 	const endI = si.kind === 'line' ? si.p1 : si.p3;
 	const hits = (nextOfI || wrap) && si.kind === 'cubic' && sj.kind === 'cubic'
 		? neighbourCubicHits(si, sj, nextOfI, wrap, tolerance, vertexTolerance)

@@ -3,9 +3,9 @@ import {
 	lineSegment,
 	outlineNearestLocation,
 	outlineReverse,
+	pathRotateAbout,
 	pointRotateAbout,
 	segmentEnd,
-	segmentRotateAbout,
 	segmentSplitAtMany,
 	segmentWithStart,
 	vecAngleBetween,
@@ -226,7 +226,8 @@ function openForward(
 	const phis = targets.map((tg) => tg.request.angleRad);
 	const rot: number[] = [];
 	for (let c = 0; c <= m; c++) rot.push(sign * phis.slice(c).reduce((s, v) => s + v, 0));
-	const rotated = chains.map((ch, c) => (rot[c] === 0 ? ch : ch.map((s) => segmentRotateAbout(s, P, rot[c]))));
+	// each chain turns as one path (a point shared by two segments is turned once; the numbers are the same)
+	const rotated = chains.map((ch, c) => (rot[c] === 0 ? ch : pathRotateAbout({ segments: ch }, P, rot[c]).segments));
 
 	const out: Segment[] = [];
 	const openings: OpenedWedge[] = [];
