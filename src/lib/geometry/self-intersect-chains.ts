@@ -44,16 +44,11 @@ interface Chain {
 	readonly crossHi: number;
 }
 
-/** Ranges of every piece along a and across it (c), grown by the reach. */
-interface Ranges {
-	readonly aLo: Float64Array;
-	readonly aHi: Float64Array;
-	readonly cLo: Float64Array;
-	readonly cHi: Float64Array;
-}
+/** Ranges of every piece along a and across it (c), grown by the reach: aLo, aHi, cLo, cHi at 4p … 4p + 3. */
+type Ranges = Float64Array;
 
 const near = (g: Ranges, p: number, q: number): boolean =>
-	g.cLo[q] <= g.cHi[p] && g.cLo[p] <= g.cHi[q] && g.aLo[q] <= g.aHi[p] && g.aLo[p] <= g.aHi[q];
+	g[4 * q + 2] <= g[4 * p + 3] && g[4 * p + 2] <= g[4 * q + 3] && g[4 * q] <= g[4 * p + 1] && g[4 * p] <= g[4 * q + 1];
 
 /** Collects candidate pairs as keys i·n + j (i < j); duplicates are removed at the end. */
 class PairKeys {
@@ -71,11 +66,12 @@ class PairKeys {
 		}
 		this.keys[this.count++] = a < b ? a * this.n + b : b * this.n + a;
 	}
-	pairs(): number[] {
-		const k = this.keys.subarray(0, this.count).sort();
+	/** The pairs; `unique`: no pair can have been added twice (every segment is one piece). */
+	pairs(unique: boolean): number[] {
+		const k = unique ? this.keys.subarray(0, this.count) : this.keys.subarray(0, this.count).sort();
 		const out: number[] = [];
 		for (let t = 0; t < k.length; t++) {
-			if (t > 0 && k[t] === k[t - 1]) continue;
+			if (!unique && t > 0 && k[t] === k[t - 1]) continue;
 			const i = Math.floor(k[t] / this.n);
 			out.push(i, k[t] - i * this.n);
 		}
@@ -226,18 +222,17 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	const starts = alongY ? sy : sx;
 	if (starts.length > MAX_CHAINS) return null;
 	const [A0, A1, C0, C1] = alongY ? [y0, y1, x0, x1] : [x0, x1, y0, y1];
-	const aLo = new Float64Array(m), aHi = new Float64Array(m), cLo = new Float64Array(m), cHi = new Float64Array(m);
+	const g: Ranges = new Float64Array(4 * m);
 	for (let p = 0; p < m; p++) {
-		aLo[p] = Math.min(A0[p], A1[p]) - reach;
-		aHi[p] = Math.max(A0[p], A1[p]) + reach;
-		cLo[p] = Math.min(C0[p], C1[p]) - reach;
-		cHi[p] = Math.max(C0[p], C1[p]) + reach;
+		g[4 * p] = Math.min(A0[p], A1[p]) - reach;
+		g[4 * p + 1] = Math.max(A0[p], A1[p]) + reach;
+		g[4 * p + 2] = Math.min(C0[p], C1[p]) - reach;
+		g[4 * p + 3] = Math.max(C0[p], C1[p]) + reach;
 	}
 	const found = new PairKeys(seg, segs.length);
 	let work = 0;
 	const budget = WORK_PER_PIECE * m + 1024;
 
-	const g: Ranges = { aLo, aHi, cLo, cHi };
 	const order = new Int32Array(m);
 	const chains: Chain[] = [];
 	for (let c = 0; c < starts.length; c++) {
@@ -247,10 +242,10 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 		let lo = Infinity, hi = -Infinity, crossLo = Infinity, crossHi = -Infinity;
 		for (let p = from; p < to; p++) {
 			order[p] = rising ? p : to - 1 - (p - from);
-			lo = Math.min(lo, aLo[p]);
-			hi = Math.max(hi, aHi[p]);
-			crossLo = Math.min(crossLo, cLo[p]);
-			crossHi = Math.max(crossHi, cHi[p]);
+			lo = Math.min(lo, g[4 * p]);
+			hi = Math.max(hi, g[4 * p + 1]);
+			crossLo = Math.min(crossLo, g[4 * p + 2]);
+			crossHi = Math.max(crossHi, g[4 * p + 3]);
 		}
 		chains.push({ from, to, lo, hi, crossLo, crossHi });
 		// within the chain: each piece against the ones that follow it while their ranges of a still meet
@@ -258,7 +253,7 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 			const p = order[k];
 			for (let r = k + 1; r < to; r++) {
 				const q = order[r];
-				if (r > k + 1 && aLo[q] > aHi[p]) break;
+				if (r > k + 1 && g[4 * q] > g[4 * p + 1]) break;
 				if (++work > budget) return null;
 				if (seg[p] === seg[q] || !near(g, p, q)) continue;
 				if (r === k + 1 && skipJoins && joinGoesOn(pieces, Math.min(p, q), Math.max(p, q))) continue;
@@ -280,7 +275,7 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 			mergeChains(A, B, order, g, found);
 		}
 	}
-	return found.pairs();
+	return found.pairs(m === segs.length);
 }
 
 /** Piece pairs of two chains whose ranges of a meet (both walked in order of a). */
@@ -288,10 +283,10 @@ function mergeChains(A: Chain, B: Chain, order: Int32Array, g: Ranges, found: Pa
 	let j0 = B.from;
 	for (let k = A.from; k < A.to; k++) {
 		const p = order[k];
-		while (j0 < B.to && g.aHi[order[j0]] < g.aLo[p]) j0++;
+		while (j0 < B.to && g[4 * order[j0] + 1] < g[4 * p]) j0++;
 		for (let r = j0; r < B.to; r++) {
 			const q = order[r];
-			if (g.aLo[q] > g.aHi[p]) break;
+			if (g[4 * q] > g[4 * p + 1]) break;
 			if (near(g, p, q)) found.add(p, q);
 		}
 	}
