@@ -2,7 +2,7 @@ import { pathBoundingBox, boundingBoxUnion, BOUNDING_BOX_EMPTY, vecAdd, type Vec
 import { ledgerBalance, type LedgerEntry } from '$lib/pattern/ledger';
 import { pieceMetrics } from '$lib/pattern/metrics';
 import type { Piece } from '$lib/pattern/piece-schema';
-import { recipeReplayStep } from '$lib/pattern/verify/replay';
+import { recipeStepApply } from '$lib/pattern/recipe/registry';
 import { versionVerify, type RecipeStepData } from '$lib/pattern/verify/version-verify';
 import type { AllowanceCorner, SeamPair } from '$lib/pattern/panels';
 import { ApiFailure, pieceCreate, pieceLoad, seamPairCreate, seamPairPatch, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
@@ -212,7 +212,7 @@ export class EditorState {
 	selectedVerify = $derived.by(() => {
 		const p = this.selected;
 		if (!p || p.steps.length === 0 || !p.base) return null;
-		return versionVerify(p.base, p.geometry, this.recipeOf(p), recipeReplayStep, this.declaredOf(p));
+		return versionVerify(p.base, p.geometry, this.recipeOf(p), recipeStepApply, this.declaredOf(p));
 	});
 
 	// ---------- loading ----------

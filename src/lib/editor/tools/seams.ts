@@ -2,6 +2,7 @@ import { pathLength, pathReverse, vecDistance, type Path, type Vec } from '$lib/
 import { edgeEnds, edgeInOrder } from '$lib/pattern/panels/seam-edge-ends';
 import type { SeamPair } from '$lib/pattern/panels';
 import type { Piece } from '$lib/pattern/piece-schema';
+import { piecesForStep } from '$lib/pattern/recipe/registry';
 import type { EditorState } from '../editor-state.svelte';
 import type { SeamPairInfo } from '../api';
 import type { PointerInfo, ToolDef } from './types';
@@ -35,15 +36,15 @@ export function orientAs(a: Path, b: Path): Path {
  * unless two share one; `pairFor` turns a pair of editor keys into a pair of those ids.
  */
 export function opPieces(s: EditorState, keys: readonly string[]) {
-	const pieces: Piece[] = [];
-	const idOf = new Map<string, string>();
-	for (const [i, k] of keys.entries()) {
+	const given: Piece[] = [];
+	for (const k of keys) {
 		const g = s.piece(k)?.geometry;
 		if (!g) return null;
-		const id = pieces.some((q) => q.id === g.id) ? `${g.id.slice(0, 56)}-${i}` : g.id;
-		idOf.set(k, id);
-		pieces.push(id === g.id ? g : { ...g, id });
+		given.push(g);
 	}
+	// the server gives the sources their step ids by the same rule (recipe registry)
+	const pieces = piecesForStep(given);
+	const idOf = new Map(keys.map((k, i) => [k, pieces[i].id]));
 	const pairFor = (p: SeamPair): SeamPair => ({ ...p, a: { ...p.a, pieceId: idOf.get(p.a.pieceId) ?? p.a.pieceId }, b: { ...p.b, pieceId: idOf.get(p.b.pieceId) ?? p.b.pieceId } });
 	return { pieces, pairFor };
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { SVGPathData } from 'svg-pathdata';
 import { outlineArea } from '../kernel';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
-import { recipeReplayStep } from '../verify/replay';
+import { recipeStepApply } from '../recipe/registry';
 import { pieceSvg, styleSvg } from './svg';
 
 const meta = { styleName: 'Juniper bodice', styleCode: 'LR-101', sizeLabel: 'ASTM D5585 misses 8', versionNumber: 3 };
@@ -65,7 +65,7 @@ describe('SVG export at true scale', () => {
 	});
 
 	it('draws the cut line from the seam allowance when one was added, and says so', () => {
-		const r = recipeReplayStep(piece, { op: 'allowance', params: { defaultWidthMm: 10 } });
+		const r = recipeStepApply(piece, { op: 'allowance', params: { defaultWidthMm: 10 } });
 		if (!r.ok) throw new Error(r.error.message);
 		const cutLine = r.piece.seamAllowance!.cutLine;
 		const withAllowance = pieceSvg(r.piece, meta);

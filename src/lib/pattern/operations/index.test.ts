@@ -2,10 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
 import { pieceFromInput } from '../piece';
 import type { Vec } from '../kernel';
-import { applyOperation, recipeStepSchema } from './index';
+import { recipeStepApply as applyOperation, recipeStepSchema } from '../recipe/registry';
 import { pivot } from './pivot';
 
-describe('applyOperation (recipe replay)', () => {
+describe('dart operations through the recipe registry', () => {
 	it('replays a recipe: pivot the shoulder dart to the side, pleat the waist dart, pull back, cap', () => {
 		let piece = frontBodiceBlock();
 		const steps = [

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { lineSegment, outlineFromPolyline, pathFromPolyline, type Vec } from '../kernel';
 import { ledgerBalance } from '../ledger';
-import { recipeReplayStep } from '../verify/replay';
+import { recipeStepApply } from '../recipe/registry';
 import { carry } from './carry';
 import { divergencePoint } from './divergence-point';
 import { separate } from './separate';
@@ -61,10 +61,10 @@ describe('marking a divergence point', () => {
 
 	it('is a recipe step the server replays the same way', () => {
 		const { cf } = separatedThroughTheBustPoint();
-		const r = recipeReplayStep(cf, { op: 'divergence_point', params: { apexId: 'bp' } });
+		const r = recipeStepApply(cf, { op: 'divergence_point', params: { apexId: 'bp' } });
 		if (!r.ok) throw new Error(r.error.message);
 		expect(r.piece.apexes.find((a) => a.id === 'bp')?.kind).toBe('divergence');
-		const bad = recipeReplayStep(cf, { op: 'divergence_point', params: {} });
+		const bad = recipeStepApply(cf, { op: 'divergence_point', params: {} });
 		expect(bad.ok).toBe(false);
 	});
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { outlineArea, outlineFromPolyline, pathFromPolyline, type Vec } from '../kernel';
 import { ledgerBalance } from '../ledger';
-import { applyOperation } from '../operations';
+import { recipeStepApply } from '../recipe/registry';
 import { wedgeGeometry } from '../piece';
 import { join } from './join';
 import { separate } from './separate';
@@ -53,7 +53,7 @@ describe('separate through a dart apex, then join back along the seam separate m
 		const j = join(s.pieces, s.seamPairs[0]);
 		if (!j.ok) throw new Error(j.error.message);
 		const back = j.pieces[0];
-		const r = applyOperation(back, { op: 'pivot', params: { dartId: back.darts[0].id, to: { x: 200, y: 100 } } });
+		const r = recipeStepApply(back, { op: 'pivot', params: { dartId: back.darts[0].id, to: { x: 200, y: 100 } } });
 		if (!r.ok) throw new Error(r.error.message);
 		expect(r.piece.darts).toHaveLength(1);
 	});

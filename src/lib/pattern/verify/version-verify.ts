@@ -4,6 +4,7 @@ import { pieceMetrics, type PieceMetrics } from '../metrics';
 import type { OperationResult } from '../operation-result';
 import { resultProblems } from '../operation-result';
 import type { Piece } from '../piece-schema';
+import { ORIGIN_STEP_NAMES, stepStartsHistory } from '../recipe/registry';
 import { pieceGeometryDifference, REPLAY_TOLERANCE_MM } from './piece-compare';
 
 /** One step of a recipe as stored: an operation name and its parameters. */
@@ -33,8 +34,6 @@ export type VersionVerdict =
 	  }
 	| { readonly ok: false; readonly problem: VerifyProblem };
 
-/** Recipe steps that start a piece's history instead of transforming a parent. */
-export const ORIGIN_OPS = ['draft', 'import', 'separate_result'] as const;
 
 function fail(code: VerifyProblemCode, message: string, details?: readonly string[]): VersionVerdict {
 	return { ok: false, problem: { code, message, details } };
@@ -64,9 +63,9 @@ export function versionVerify(
 		return fail('invalid_geometry', `The piece's geometry is not sound: ${problems.slice(0, 3).join(' ')}`, problems);
 	}
 	if (parent === null) {
-		const origin = recipe.length === 1 && (ORIGIN_OPS as readonly string[]).includes(recipe[0].op);
+		const origin = recipe.length === 1 && stepStartsHistory(recipe[0].op);
 		if (!origin) {
-			return fail('recipe_missing', `A first version must come from ${ORIGIN_OPS.join(', ')}, as a single recipe step.`);
+			return fail('recipe_missing', `A first version must come from ${ORIGIN_STEP_NAMES.join(', ')}, as a single recipe step.`);
 		}
 		return { ok: true, piece: submitted, metrics: pieceMetrics(submitted), ledger: [], checks: [] };
 	}

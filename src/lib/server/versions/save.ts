@@ -3,7 +3,7 @@ import type { LedgerEntry } from '$lib/pattern/ledger';
 import { pieceSchema, type Piece } from '$lib/pattern/piece-schema';
 import { versionVerify, type RecipeStepData, type VerifyProblem } from '$lib/pattern/verify/version-verify';
 import { seamPairMeasure, type SeamPairMeasure } from '$lib/pattern/verify/seam-measure';
-import { recipeReplayStep } from '$lib/pattern/verify/replay';
+import { recipeStepApply } from '$lib/pattern/recipe/registry';
 import { piecesHeadSet, piecesInStudio, piecesLockForSave, piecesOfStyle } from '../repositories/pieces';
 import { seamPairsOfStyle } from '../repositories/seam-pairs';
 import { versionsGeometry, versionsInsert } from '../repositories/versions';
@@ -90,7 +90,7 @@ export async function versionSave(db: Db, input: SaveInput, hooks: SaveHooks = {
 		if (!base) return { ok: false, status: 404, message: 'The base version does not belong to this piece.' };
 		parent = pieceSchema.parse(base);
 	}
-	const verdict = versionVerify(parent, input.geometry, input.recipe, recipeReplayStep, input.declared ?? []);
+	const verdict = versionVerify(parent, input.geometry, input.recipe, recipeStepApply, input.declared ?? []);
 	if (!verdict.ok) return { ok: false, status: 422, problem: verdict.problem };
 	const warnings = await seamWarnings(db, piece.styleId, piece.id, verdict.piece);
 	const checks = [

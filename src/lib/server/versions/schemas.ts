@@ -1,7 +1,10 @@
 import { z } from 'zod';
 import { ledgerEntrySchema } from '$lib/pattern/ledger';
 import { pieceSchema } from '$lib/pattern/piece-schema';
+import { recipeStepSchema } from '$lib/pattern/recipe/registry';
 import { uuidSchema } from '../validation';
+
+export { recipeStepSchema };
 
 /** Request bodies of the styles / pieces / versions API. */
 export const styleCreateSchema = z.object({
@@ -22,10 +25,6 @@ export const stylePatchSchema = z
 	})
 	.partial();
 
-export const recipeStepSchema = z.object({
-	op: z.string().min(1).max(40),
-	params: z.unknown().optional()
-});
 
 export const pieceCreateSchema = z.object({
 	name: z.string().trim().min(1).max(120),

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
-import { recipeReplayStep } from './replay';
+import { recipeStepApply } from './registry';
 
-describe('recipe replay', () => {
+describe('recipe replay of one piece (registry)', () => {
 	const block = frontBodiceBlock();
 
 	it('adds a seam allowance as the last step and keeps the stitching line as it was', () => {
-		const r = recipeReplayStep(block, { op: 'allowance', params: { defaultWidthMm: 15 } });
+		const r = recipeStepApply(block, { op: 'allowance', params: { defaultWidthMm: 15 } });
 		expect(r.ok).toBe(true);
 		if (r.ok) {
 			expect(r.piece.outline).toEqual(block.outline);
@@ -16,9 +16,9 @@ describe('recipe replay', () => {
 	});
 
 	it('drops the seam allowance when a later step changes the stitching line, and says so', () => {
-		const a = recipeReplayStep(block, { op: 'allowance', params: { defaultWidthMm: 10 } });
+		const a = recipeStepApply(block, { op: 'allowance', params: { defaultWidthMm: 10 } });
 		if (!a.ok) throw new Error(a.error.message);
-		const p = recipeReplayStep(a.piece, { op: 'pivot', params: { dartId: 'shoulder-dart', to: { x: 235 - 10 / 3, y: 300 } } });
+		const p = recipeStepApply(a.piece, { op: 'pivot', params: { dartId: 'shoulder-dart', to: { x: 235 - 10 / 3, y: 300 } } });
 		expect(p.ok).toBe(true);
 		if (p.ok) {
 			expect(p.piece.seamAllowance).toBeNull();
@@ -27,18 +27,18 @@ describe('recipe replay', () => {
 	});
 
 	it('refuses panel steps with malformed parameters instead of throwing', () => {
-		const r = recipeReplayStep(block, { op: 'notch', params: { id: 'n', at: { x: 'a' } } });
+		const r = recipeStepApply(block, { op: 'notch', params: { id: 'n', at: { x: 'a' } } });
 		expect(r.ok).toBe(false);
 		if (!r.ok) expect(r.error.code).toBe('invalid_params');
 	});
 
 	it('refuses origin steps applied to an existing version', () => {
-		const r = recipeReplayStep(block, { op: 'draft' });
+		const r = recipeStepApply(block, { op: 'draft' });
 		expect(!r.ok && r.error.message).toMatch(/starts a piece's history/);
 	});
 
 	it('refuses an unknown operation with a clear message', () => {
-		const r = recipeReplayStep(block, { op: 'fold_in_half_twice' });
+		const r = recipeStepApply(block, { op: 'fold_in_half_twice' });
 		expect(r.ok).toBe(false);
 	});
 });
