@@ -5,6 +5,7 @@ import demo from '../../fixtures/demo-studio.json';
 import { DEMO_STYLE, demoPath } from '../../src/lib/pattern/fixtures/demo-path';
 import { draftedStyleDiscard } from '../../src/lib/server/repositories/measurement-sets';
 import { piecesOfStyle } from '../../src/lib/server/repositories/pieces';
+import { styleChangesOfStyle } from '../../src/lib/server/repositories/style-changes';
 import { stylesOfStudio } from '../../src/lib/server/repositories/styles';
 import { usersByEmail } from '../../src/lib/server/repositories/users';
 import { versionsById, versionsOfPiece } from '../../src/lib/server/repositories/versions';
@@ -65,10 +66,12 @@ describe('demo style: Juniper corset bodice', () => {
 		expect(pieces.map((p) => [p.name, p.headNumber])).toEqual(expected.map((p) => [p.name, 1 + p.later.length]));
 		const band = pieces.find((p) => p.name === 'Midriff band')!;
 		const v1 = await versionsById(testDb(), band.id, (await versionsAsc(band.id))[0].id);
-		const origin = (v1!.recipe as { op: string; params: { operation: string; from: { pieceId: string }[] } }[])[0];
-		expect(origin.op).toBe('separate_result');
-		expect(origin.params.operation).toBe('carry');
-		expect(origin.params.from.map((f) => f.pieceId)).toEqual(pieces.filter((p) => p.name.startsWith('Under-structure')).map((p) => p.id));
+		const origin = (v1!.recipe as { op: string; params: { changeId: string; step: number; result: number } }[])[0];
+		expect(origin.op).toBe('change_result');
+		// one style change made the band and the upper front: a carry of the panels, then two joins above the line
+		const change = (await styleChangesOfStyle(testDb(), style.id)).find((x) => x.id === origin.params.changeId)!;
+		expect((change.steps as { op: string }[]).map((s) => s.op)).toEqual(['carry', 'join', 'join']);
+		expect(change.bases.map((b) => b.pieceId)).toEqual(pieces.filter((p) => p.name.startsWith('Under-structure')).map((p) => p.id));
 	});
 
 	it('stores every version with passing checks, the ledger of each later version from the server\'s replay', async () => {
@@ -85,7 +88,7 @@ describe('demo style: Juniper corset bodice', () => {
 		const upper = (await piecesOfStyle(testDb(), style.id)).find((p) => p.name === 'Upper front')!;
 		const ops = [];
 		for (const s of await versionsAsc(upper.id)) ops.push(((await versionsById(testDb(), upper.id, s.id))!.recipe as { op: string }[])[0].op);
-		expect(ops).toEqual(['separate_result', 'pivot', 'pleat', 'grain']);
+		expect(ops).toEqual(['change_result', 'pivot', 'pleat', 'grain']);
 	});
 
 	it('has the final band and upper front signed off, the rest in draft', async () => {

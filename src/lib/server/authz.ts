@@ -64,6 +64,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/styles': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES, PATCH: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/pieces': { POST: EDITORS },
+	'/api/studios/[studioId]/styles/[styleId]/changes': { POST: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/seam-pairs': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/seam-pairs/[seamPairId]': { PATCH: EDITORS, DELETE: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/export.svg': { GET: ALL_ROLES },

@@ -69,6 +69,13 @@ function allowanceStep(piece: Piece, a: z.output<typeof S.allowanceParamsSchema>
 
 const seam = (p: S.SeamPairParams): SeamPair => p;
 
+/** Pivot, optionally choosing first which leg of the dart turns (the pattern cutter's choice). */
+const pivotStepSchema = pivotParamsSchema.extend({ movingLeg: z.enum(['leg1', 'leg2']).optional() });
+function pivotStep(piece: Piece, { movingLeg, ...p }: z.output<typeof pivotStepSchema>): OperationResult {
+	if (!movingLeg) return pivot(piece, p);
+	return pivot({ ...piece, darts: piece.darts.map((d) => (d.id === p.dartId ? { ...d, movingLeg } : d)) }, p);
+}
+
 export const RECIPE_STEPS = {
 	// origins: a piece's first version
 	draft: origin(S.draftParamsSchema),
@@ -76,7 +83,7 @@ export const RECIPE_STEPS = {
 	separate_result: origin(S.separateResultParamsSchema),
 	change_result: origin(S.changeResultParamsSchema),
 	// dart operations
-	pivot: dartOp(pivotParamsSchema, pivot),
+	pivot: dartOp(pivotStepSchema, pivotStep),
 	share: dartOp(shareParamsSchema, share),
 	spread: dartOp(spreadParamsSchema, spread),
 	pleat: dartOp(pleatParamsSchema, pleat),

@@ -140,6 +140,20 @@ export interface Database {
 	pieces: PiecesTable;
 	piece_versions: PieceVersionsTable;
 	seam_pairs: SeamPairsTable;
+	style_changes: StyleChangesTable;
+}
+
+/** Multi-piece steps of one save (migration 2026-12-03-0040): recomputed from their sources' versions. */
+export interface StyleChangesTable {
+	id: Generated<string>;
+	style_id: string;
+	author_id: string | null;
+	message: string;
+	bases: Json;
+	steps: Json;
+	ledger: Json;
+	checks: Json;
+	created_at: CreatedAt;
 }
 
 /**

@@ -4,6 +4,7 @@ import type { Role } from '../db/schema';
 import { measurementChartsEnsure } from '../measurements/charts';
 import { draftedStyleDiscard, measurementSetsOfStudio } from '../repositories/measurement-sets';
 import { stylesCreate, stylesOfStudio } from '../repositories/styles';
+import { changeSave } from '../changes/save';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { versionSave, type SaveOutcome } from '../versions/save';
 import { versionStateChange } from '../versions/state';
@@ -32,7 +33,8 @@ function refusal(what: string, r: Extract<SaveOutcome, { ok: false }>): Error {
  * Seeds the demo style "Juniper corset bodice" (LR-214) into the demo studio: every piece and version of
  * the pure demo path ($lib/pattern/fixtures/demo-path.ts), stored through the same server functions as
  * the API, so each version is verified on the server (its recipe replayed on the previous version, the
- * shaping checks run) before it is stored. Idempotent: nothing is done when the studio already has a
+ * shaping checks run) before it is stored; the band and the upper front come from one style change,
+ * recomputed by the server from the drafted panels (the change endpoint's own path). Idempotent: nothing is done when the studio already has a
  * style with this code. All or nothing: if any version is refused, the new style is removed again.
  * Takes `db` (not a transaction): versionSave opens its own transactions.
  */
@@ -55,47 +57,46 @@ export async function demoStyleSeed(db: Db, studioId: string, authors: DemoStyle
 		createdBy: authors.patterncutter
 	});
 	const made = new Map<string, { id: string; name: string; versions: { id: string; number: number }[] }>();
+	const fromChange = new Set(Object.keys(path.change.results));
+	const laterVersions = async (p: (typeof path.pieces)[number], pieceId: string, versions: { id: string; number: number }[]) => {
+		for (const v of p.later) {
+			const r = await versionSave(db, { studioId, pieceId, baseVersionId: versions[versions.length - 1].id, message: v.message, geometry: v.geometry, recipe: v.recipe, authorId: authors.patterncutter });
+			if (!r.ok) throw refusal(`${p.name} v${versions.length + 1}`, r);
+			versions.push({ id: r.version.id, number: r.version.number });
+		}
+		made.set(p.key, { id: pieceId, name: p.name, versions });
+	};
 	try {
-		for (const p of path.pieces) {
-			const origin =
-				p.first.origin.op === 'draft'
-					? { op: 'draft', params: { measurementSetId: set.id, ...(p.first.origin.params as object) } }
-					: {
-							op: p.first.origin.op,
-							params: {
-								...(p.first.origin.params as object),
-								from: p.first.madeFrom.map((k) => {
-									const src = made.get(k);
-									if (!src) throw new Error(`Demo style: "${p.name}" is made from "${k}", which is not there yet.`);
-									return { pieceId: src.id, versionId: src.versions[0].id, name: src.name };
-								})
-							}
-						};
-			const first = await pieceCreateWithFirstVersion(db, {
-				studioId,
-				styleId: style.id,
-				authorId: authors.patterncutter,
-				name: p.name,
-				message: p.first.message,
-				geometry: p.first.geometry,
-				origin
-			});
+		// the drafted pieces, each verified and stored as version 1
+		for (const p of path.pieces.filter((q) => !fromChange.has(q.key))) {
+			const origin = { op: 'draft', params: { measurementSetId: set.id, ...(p.first.origin.params as object) } };
+			const first = await pieceCreateWithFirstVersion(db, { studioId, styleId: style.id, authorId: authors.patterncutter, name: p.name, message: p.first.message, geometry: p.first.geometry, origin });
 			if (!first.ok) throw refusal(`${p.name} v1`, first);
-			const versions = [{ id: first.version.id, number: first.version.number }];
-			for (const v of p.later) {
-				const r = await versionSave(db, {
-					studioId,
-					pieceId: first.piece.id,
-					baseVersionId: versions[versions.length - 1].id,
-					message: v.message,
-					geometry: v.geometry,
-					recipe: v.recipe,
-					authorId: authors.patterncutter
-				});
-				if (!r.ok) throw refusal(`${p.name} v${versions.length + 1}`, r);
-				versions.push({ id: r.version.id, number: r.version.number });
+			await laterVersions(p, first.piece.id, [{ id: first.version.id, number: first.version.number }]);
+		}
+		// the carry and the joins above the line: one style change, recomputed by the server from the panels
+		const idOf = (key: string) => made.get(key)?.id ?? key;
+		const sourceKeys = [...new Set(path.change.steps.flatMap((s) => s.sources.flatMap((src) => ('pieceId' in src ? [src.pieceId] : []))))];
+		const newKeys = Object.keys(path.change.results);
+		const change = await changeSave(db, {
+			studioId,
+			styleId: style.id,
+			authorId: authors.patterncutter,
+			body: {
+				message: path.change.message,
+				bases: sourceKeys.map((k) => ({ pieceId: idOf(k), versionId: made.get(k)!.versions[0].id })),
+				steps: path.change.steps.map((s) => ({ ...s, sources: s.sources.map((src) => ('pieceId' in src ? { ...src, pieceId: idOf(src.pieceId) } : src)) })),
+				pieces: newKeys.map((k) => {
+					const p = path.pieces.find((q) => q.key === k)!;
+					return { ...path.change.results[k], name: p.name, cut: p.first.geometry.cut, geometry: p.first.geometry };
+				}),
+				seamPairs: { create: [], update: [] }
 			}
-			made.set(p.key, { id: first.piece.id, name: p.name, versions });
+		});
+		if (!change.ok) throw new Error(`Demo style: the carry was refused: ${change.status === 409 ? 'a base moved' : change.status === 404 ? change.message : change.problem.message}`);
+		for (const [i, k] of newKeys.entries()) {
+			const p = path.pieces.find((q) => q.key === k)!;
+			await laterVersions(p, change.pieces[i].id, [...change.pieces[i].versions]);
 		}
 		for (const key of SIGNED_OFF) {
 			const p = made.get(key)!;
