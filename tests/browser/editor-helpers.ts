@@ -85,3 +85,27 @@ export async function clickOnPiece(page: Page, key: string, p: { x: number; y: n
 }
 
 export const lerp = (a: { x: number; y: number }, b: { x: number; y: number }, t: number) => ({ x: a.x + (b.x - a.x) * t, y: a.y + (b.y - a.y) * t });
+
+/**
+ * Saves from the Save panel; when the save makes new pieces (separate, join, carry), the naming dialog
+ * asks for each one's name and cut: `names` are typed in (else the suggested names get " (new)" added,
+ * as a new piece may not keep a name of a piece it was made from). Waits for the reports.
+ */
+export async function saveFromPanel(page: Page, message: string, names?: readonly string[]): Promise<void> {
+	await page.fill('#save-message', message);
+	await page.click('button:has-text("Save version")');
+	const dialog = page.locator('[data-testid="new-pieces"]');
+	const report = page.locator('[data-testid="save-report"]');
+	await Promise.race([dialog.waitFor({ timeout: 20_000 }), report.first().waitFor({ timeout: 20_000 })]);
+	if (await dialog.count()) {
+		const inputs = dialog.locator('input[name^="new-piece-name-"]');
+		for (let i = 0; i < (await inputs.count()); i++) {
+			const input = inputs.nth(i);
+			await input.fill(names?.[i] ?? `${await input.inputValue()} (new)`);
+		}
+		await dialog.locator('button:has-text("Save the change")').click();
+		await report.first().waitFor({ timeout: 20_000 });
+	}
+	// the button says "Saving…" until the last piece is stored
+	await page.waitForSelector('button:has-text("Save version")', { timeout: 20_000 });
+}

@@ -5,7 +5,7 @@ import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { underStructurePanels } from '../../src/lib/pattern/panels/fixtures/under-structure-panels';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { browserLaunch, pageScreenshot } from './chromium';
-import { dragOnPiece, editorOpen, signUp, styleWithPieces } from './editor-helpers';
+import { dragOnPiece, editorOpen, saveFromPanel, signUp, styleWithPieces } from './editor-helpers';
 
 // The 6-panel boned under-structure drafted from the ASTM D5585 misses chart, size 10 curvy.
 const six = underStructurePanels(6);
@@ -48,11 +48,7 @@ function forward(piece: Piece, e: { from: Vec; to: Vec }): number {
 const readouts = (page: Page) => page.locator('[data-testid="tool-readouts"]').textContent();
 
 async function saveAll(page: Page, message: string) {
-	await page.fill('#save-message', message);
-	await page.click('button:has-text("Save version")');
-	await page.waitForSelector('[data-testid="save-report"]', { timeout: 20_000 });
-	// every new piece is saved in turn; the button says "Saving…" until the last one is stored
-	await page.waitForSelector('button:has-text("Save version")', { timeout: 20_000 });
+	await saveFromPanel(page, message);
 	const err = page.locator('[role="alert"]');
 	if (await err.count()) throw new Error(`save: ${await err.allTextContents()}`);
 }

@@ -7,7 +7,7 @@ import { outlineBetween, pathLength } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { allowanceEdges } from '../../src/lib/pattern/panels/allowance-edges';
 import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, toPage } from './editor-helpers';
+import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, saveFromPanel, toPage } from './editor-helpers';
 
 const block = frontBodiceBlock();
 const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
@@ -149,10 +149,7 @@ describe('pattern editor', () => {
 		await clickOnPiece(page, newKey, lerp(s0.p0, s0.kind === 'line' ? s0.p1 : s0.p3, 0.5));
 		await page.keyboard.press('Enter');
 		await expect.poll(() => page.locator('[data-testid="recipe"]').textContent()).toContain('notch');
-		await page.fill('#save-message', 'Front cut along the style line');
-		await page.click('button:has-text("Save version")');
-		await page.waitForSelector('[data-testid="save-report"]', { timeout: 20_000 });
-		await page.waitForSelector('button:has-text("Save version")', { timeout: 20_000 });
+		await saveFromPanel(page, 'Front cut along the style line');
 		expect(await page.locator('[role="alert"]').count()).toBe(0);
 		expect((await page.locator('[data-testid="save-report"]').allTextContents()).join(' ')).toContain('version 2 saved');
 		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();

@@ -2,6 +2,7 @@ import type { LedgerEntry, ShapingCheck } from '$lib/pattern/ledger';
 import { parsePiece } from '$lib/pattern/piece';
 import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
+import type { ChangeBody } from './change-save';
 
 /** The editor's calls to the versions API (JSON; errors as `{ error: { code, message, fields? } }`). */
 
@@ -108,12 +109,16 @@ export async function versionSave(
 	return call<SaveResult>(`/api/studios/${studioId}/pieces/${pieceId}/versions`, { method: 'POST', body: JSON.stringify(body) });
 }
 
-export async function pieceCreate(
-	studioId: string,
-	styleId: string,
-	body: { name: string; message: string; geometry: Piece; origin: RecipeStepData }
-): Promise<SaveResult & { piece: { id: string; name: string } }> {
-	return call(`/api/studios/${studioId}/styles/${styleId}/pieces`, { method: 'POST', body: JSON.stringify(body) });
+export interface ChangeResult {
+	readonly change: { id: string };
+	readonly pieces: readonly { id: string; name: string; versions: readonly { id: string; number: number }[] }[];
+	readonly checks: readonly (ShapingCheck & { step?: number })[];
+	readonly warnings: readonly { seamPairId: string; label: string; message: string }[];
+}
+
+/** Save the editor's multi-piece steps as one style change (all stored, or nothing). */
+export async function changeSave(studioId: string, styleId: string, body: ChangeBody): Promise<ChangeResult> {
+	return call(`/api/studios/${studioId}/styles/${styleId}/changes`, { method: 'POST', body: JSON.stringify(body) });
 }
 
 type XY = { x: number; y: number };
@@ -123,7 +128,7 @@ export interface SeamPairSide {
 	readonly to: XY;
 }
 
-/** Store a seam pair (edge ends in each piece's outline order). */
+/** Store a seam pair (edge ends in each piece's outline order): the user pairs two seams of stored pieces. */
 export async function seamPairCreate(
 	studioId: string,
 	styleId: string,

@@ -2,6 +2,7 @@ import type { Path, Vec } from '$lib/geometry';
 import type { LedgerEntry } from '$lib/pattern/ledger';
 import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
+import type { PendingStep } from './change-save';
 
 /**
  * The editor's document: immutable values, so that one history step is one replaced document and
@@ -29,7 +30,7 @@ export interface SeamEdit {
 	readonly to: Vec;
 }
 
-/** A seam pair made by Separate or Carry between new pieces (editor keys), stored after they are saved. */
+/** A seam pair made by Separate or Carry between new pieces (editor keys), saved with the change. */
 export interface PendingSeam {
 	readonly label: string;
 	readonly a: { readonly pieceKey: string; readonly edge: Path };
@@ -52,7 +53,7 @@ export interface PieceEdit {
 	readonly steps: readonly StepRecord[];
 	/** Where the piece sits on the canvas (display only, mm). */
 	readonly offset: Vec;
-	/** New pieces: the step that starts their history (e.g. separate_result). */
+	/** New pieces: the step that starts their history (change_result: made by a pending style change). */
 	readonly origin: RecipeStepData | null;
 	/** Replaced by the panels of a separate: not drawn, not saved. */
 	readonly retired: boolean;
@@ -62,7 +63,9 @@ export interface PieceEdit {
 
 export interface EditorDoc {
 	readonly pieces: readonly PieceEdit[];
-	/** Seam pairs between new pieces, posted once every piece is saved (part of the document, so undo drops them). */
+	/** Multi-piece steps not saved yet: saved together as one style change (part of the document, so undo drops them). */
+	readonly pendingSteps?: readonly PendingStep[];
+	/** Seam pairs between new pieces, saved with the change (part of the document, so undo drops them). */
 	readonly pendingSeams?: readonly PendingSeam[];
 }
 

@@ -1,17 +1,17 @@
 import { pathBoundingBox, boundingBoxUnion, BOUNDING_BOX_EMPTY, vecAdd, type Vec } from '$lib/geometry';
 import { ledgerBalance, type LedgerEntry } from '$lib/pattern/ledger';
 import { pieceMetrics } from '$lib/pattern/metrics';
-import type { Piece } from '$lib/pattern/piece-schema';
+import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
 import { recipeStepApply } from '$lib/pattern/recipe/registry';
 import { versionVerify, type RecipeStepData } from '$lib/pattern/verify/version-verify';
 import type { AllowanceCorner, SeamPair } from '$lib/pattern/panels';
-import { ApiFailure, pieceCreate, pieceLoad, seamPairCreate, seamPairPatch, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
+import { ApiFailure, changeSave, pieceLoad, seamPairPatch, styleLoad, versionSave, type SaveResult, type SeamPairInfo } from './api';
+import { changeBodyBuild, changeNewPieces, changeSourceNames, namingProblem, pieceRenamed, type PendingStep } from './change-save';
 import { docReplacePiece, pieceIsDirty, type EditorDoc, type HistoryEntry, type PendingSeam, type PieceEdit, type SeamEdit, type StepRecord } from './doc';
 import { pieceDrawing } from './drawing';
 import { hitTest, snapPoint, type Hit, type PlacedPiece, type Snap, type SnapOptions } from './hit';
 import { editorApply, editorSeparate } from './ops';
 import { TOOLS } from './tools/registry';
-import { edgeEnds } from './tools/seams';
 import type { ToolId, ToolPreview } from './tools/types';
 import type { LengthUnit } from './units';
 import { CALIBRATION_KEY, DEFAULT_PX_PER_MM, fitBox, MAX_TRUE_FACTOR, screenToWorld, UNIT_KEY, worldToScreen, zoomAbout } from './view';
@@ -164,6 +164,11 @@ export class EditorState {
 	saveReports = $state.raw<readonly SaveReport[]>([]);
 	conflict = $state.raw<Conflict | null>(null);
 	announce = $state('');
+	/** New pieces of a multi-piece change to name before it is saved (the dialog shows while set). */
+	naming = $state<{ key: string; name: string; cut: CutInstruction }[] | null>(null);
+	namingError = $state<string | null>(null);
+	private namingDone = false;
+	private namingMessage = '';
 
 	constructor(studioId: string, styleId: string, canEdit: boolean) {
 		this.studioId = studioId;
@@ -348,6 +353,7 @@ export class EditorState {
 
 	// ---------- history ----------
 	private push(next: EditorDoc, label: string) {
+		this.namingDone = false;
 		this.past = [...this.past, { doc: this.doc, label }];
 		this.future = [];
 		this.doc = next;
@@ -399,31 +405,24 @@ export class EditorState {
 		const r = editorSeparate(p.geometry, { styleLineId, pieceNames: names });
 		if (!r.ok) return r.error.message;
 		const stamp = Date.now().toString(36);
-		const made: PieceEdit[] = r.pieces.map((g, i) =>
-			pieceEditNew(`new-${stamp}-${i}`, g, vecAdd(p.offset, { x: 0, y: i * 25 }), {
-				fromPieceId: p.key.startsWith('new-') ? null : p.key,
-				fromVersionId: p.baseVersionId,
-				styleLineId,
-				part: i,
-				recipe: this.recipeOf(p)
-			})
-		);
+		const made: PieceEdit[] = r.pieces.map((g, i) => pieceEditNew(`new-${stamp}-${i}`, g, vecAdd(p.offset, { x: 0, y: i * 25 })));
+		const step: PendingStep = { op: 'separate', params: { styleLineId, pieceNames: names }, sources: [{ key, recipe: this.recipeOf(p) }], resultKeys: made.map((m) => m.key) };
 		const pieces = this.doc.pieces.flatMap((q) => (q.key === key ? [{ ...q, retired: true }, ...made] : [q]));
 		const line = p.geometry.internalLines.find((l) => l.id === styleLineId);
 		const seams = pendingSeams(r.seamPairs, made, () => `${p.name} separated at ${line?.label || 'the style line'}`);
-		this.push({ pieces, pendingSeams: [...(this.doc.pendingSeams ?? []), ...seams] }, `${p.name}: separated into ${made.length} pieces — ${r.report.summary}`);
+		this.push({ pieces, pendingSteps: [...(this.doc.pendingSteps ?? []), step], pendingSeams: [...(this.doc.pendingSeams ?? []), ...seams] }, `${p.name}: separated into ${made.length} pieces — ${r.report.summary}`);
 		this.selection.pieceKey = made[0]?.key ?? null;
 		return null;
 	}
 
 	/**
-	 * Panels merged into new pieces (join, carry): the results are saved as new pieces whose history starts
-	 * with a separate_result step naming what produced them; the sources are hidden here, like Separate.
+	 * Panels merged into new pieces (join, carry): the step is kept to be saved as a style change (with
+	 * the new pieces, recomputed by the server from the sources' versions); the sources are hidden here.
 	 */
 	mergePieces(
 		sources: readonly string[],
 		made: readonly Piece[],
-		originParams: (i: number) => Record<string, unknown>,
+		step: Pick<PendingStep, 'op' | 'params'>,
 		label: string,
 		seamPairs: readonly SeamPair[] = [],
 		seamLabel: (i: number, a: PieceEdit, b: PieceEdit) => string = (i) => `seam ${i + 1}`
@@ -433,11 +432,11 @@ export class EditorState {
 		if (src.some((p) => p!.steps.length > 0)) return 'Save the changes to these pieces first: a merged piece starts from saved versions.';
 		const first = src[0]!;
 		const stamp = Date.now().toString(36);
-		const sourceRefs = src.map((p) => ({ pieceId: p!.key.startsWith('new-') ? null : p!.key, versionId: p!.baseVersionId }));
-		const list: PieceEdit[] = made.map((g, i) => pieceEditNew(`new-${stamp}-${i}`, g, first.offset, { ...originParams(i), sources: sourceRefs }));
+		const list: PieceEdit[] = made.map((g, i) => pieceEditNew(`new-${stamp}-${i}`, g, first.offset));
+		const pending: PendingStep = { ...step, sources: sources.map((key) => ({ key, recipe: [] })), resultKeys: list.map((p) => p.key) };
 		const gone = new Set(sources);
 		const pieces = [...this.doc.pieces.map((q) => (gone.has(q.key) ? { ...q, retired: true } : q)), ...list];
-		this.push({ pieces, pendingSeams: [...(this.doc.pendingSeams ?? []), ...pendingSeams(seamPairs, list, seamLabel)] }, label);
+		this.push({ pieces, pendingSteps: [...(this.doc.pendingSteps ?? []), pending], pendingSeams: [...(this.doc.pendingSeams ?? []), ...pendingSeams(seamPairs, list, seamLabel)] }, label);
 		this.selection.pieceKey = list[0]?.key ?? null;
 		return null;
 	}
@@ -523,13 +522,6 @@ export class EditorState {
 	async save(message: string): Promise<void> {
 		if (this.saving) return;
 		const todo = this.dirty;
-		if (!todo.length && this.doc.pendingSeams?.length) {
-			// pieces saved before, seam pairs not stored yet (the server refused them): try them again
-			this.saveError = null;
-			await this.storePendingSeams();
-			await this.refreshSeamPairs();
-			return;
-		}
 		if (!todo.length) {
 			this.saveError = 'Nothing to save: no piece has changed since its version.';
 			return;
@@ -538,26 +530,88 @@ export class EditorState {
 			this.saveError = 'Say what changed in a few words before saving.';
 			return;
 		}
+		const news = changeNewPieces(this.doc);
+		if (news.length && !this.namingDone) {
+			// a new piece gets its own name and cut instruction, asked for on saving
+			this.naming = news.map((p) => ({ key: p.key, name: p.name, cut: p.cut }));
+			this.namingError = null;
+			this.namingMessage = message;
+			return;
+		}
 		this.saveError = null;
 		this.conflict = null;
 		const reports: SaveReport[] = [];
-		this.saving = { done: 0, total: todo.length, name: todo[0].name };
+		const singles = todo.filter((p) => !p.origin);
+		this.saving = { done: 0, total: singles.length + (news.length ? 1 : 0), name: news.length ? 'the new pieces' : todo[0].name };
 		try {
-			for (const [i, p] of todo.entries()) {
-				this.saving = { done: i, total: todo.length, name: p.name };
+			if (news.length) {
+				const r = await this.saveChange(message);
+				if (!r) return;
+				reports.push(...r);
+				this.saveReports = [...reports];
+			}
+			for (const [i, p] of singles.entries()) {
+				this.saving = { done: i + (news.length ? 1 : 0), total: singles.length + (news.length ? 1 : 0), name: p.name };
 				const r = await this.saveOne(p, message);
 				if (!r) return;
 				reports.push(r);
 				this.saveReports = [...reports];
 				await this.storeSeamEdits(p);
 			}
-			await this.storePendingSeams();
 			this.past = [];
 			this.future = [];
 			this.announce = `Saved ${reports.map((r) => `${r.name} version ${r.number}`).join(', ')}.`;
 			await this.refreshSeamPairs();
 		} finally {
 			this.saving = null;
+			this.namingDone = false;
+		}
+	}
+
+	/** The naming dialog's answer: the new pieces take their names and cuts, then the save goes on. */
+	async namingConfirm(entries: readonly { key: string; name: string; cut: CutInstruction }[]): Promise<void> {
+		const problem = namingProblem(entries, changeSourceNames(this.doc));
+		if (problem) {
+			this.namingError = problem;
+			return;
+		}
+		for (const e of entries) {
+			const name = e.name.trim();
+			this.doc = docReplacePiece(this.doc, e.key, (q) => ({ ...q, name, cut: e.cut, base: q.base && pieceRenamed(q.base, name, e.cut), geometry: pieceRenamed(q.geometry, name, e.cut) }));
+		}
+		this.naming = null;
+		this.namingError = null;
+		this.namingDone = true;
+		await this.save(this.namingMessage);
+	}
+	namingCancel() {
+		this.naming = null;
+		this.namingError = null;
+	}
+
+	/** Every pending multi-piece step as one style change: all stored, or nothing (the server's answer). */
+	private async saveChange(message: string): Promise<SaveReport[] | null> {
+		const built = changeBodyBuild(this.doc, message, (p) => this.recipeOf(p), (p) => this.declaredOf(p));
+		if (typeof built === 'string') {
+			this.saveError = built;
+			return null;
+		}
+		try {
+			const r = await changeSave(this.studioId, this.styleId, built.body);
+			const reports: SaveReport[] = [];
+			for (const [i, key] of built.newKeys.entries()) {
+				const p = this.piece(key)!;
+				const made = r.pieces[i];
+				const head = made.versions[made.versions.length - 1];
+				this.pieceRekey(key, { ...p, key: made.id, base: p.geometry, baseVersionId: head.id, baseNumber: head.number, steps: [], origin: null });
+				reports.push({ pieceKey: made.id, name: p.name, number: head.number, message, checks: r.checks, warnings: r.warnings });
+			}
+			this.doc = { ...this.doc, pendingSteps: [], pendingSeams: [] };
+			return reports;
+		} catch (e) {
+			const why = e instanceof Error ? e.message : String(e);
+			this.saveError = e instanceof ApiFailure && e.status === 409 ? `The change was not saved: ${why}` : `The change was not saved: ${why} Your edits are kept.`;
+			return null;
 		}
 	}
 
@@ -574,28 +628,12 @@ export class EditorState {
 
 	private async saveOne(p: PieceEdit, message: string): Promise<SaveReport | null> {
 		try {
-			let r: SaveResult;
-			let key = p.key;
-			if (p.origin) {
-				// the new piece is stored as made first; edits made on it before saving follow as version 2, so the
-				// server replays them like any other edit
-				const made = p.base ?? p.geometry;
-				const edited = p.steps.length > 0;
-				const c = await pieceCreate(this.studioId, this.styleId, { name: p.name, message: edited ? `${message.slice(0, 470)} (as made)` : message, geometry: made, origin: p.origin });
-				r = c;
-				key = c.piece.id;
-				if (edited) {
-					// stored as made; the edits stay pending on it and are saved next
-					this.pieceRekey(p.key, { ...p, key, base: made, baseVersionId: c.version.id, baseNumber: c.version.number, origin: null });
-					return await this.saveOne(this.piece(key)!, message);
-				}
-			} else {
-				r = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p), declared: this.declaredOf(p) });
-			}
+			const key = p.key;
+			const r: SaveResult = await versionSave(this.studioId, p.key, { baseVersionId: p.baseVersionId, message, geometry: p.geometry, recipe: this.recipeOf(p), declared: this.declaredOf(p) });
 			this.pieceRekey(p.key, { ...p, key, base: p.geometry, baseVersionId: r.version.id, baseNumber: r.version.number, steps: [], origin: null });
 			return { pieceKey: key, name: p.name, number: r.version.number, message, checks: r.checks, warnings: r.warnings };
 		} catch (e) {
-			if (e instanceof ApiFailure && e.status === 409 && !p.origin) {
+			if (e instanceof ApiFailure && e.status === 409) {
 				await this.openConflict(p, e, message);
 				this.saveError = `${p.name}: ${e.message}`;
 			} else {
@@ -618,37 +656,6 @@ export class EditorState {
 				this.saveError = `${p.name} was saved, but ${name} still has its old edge ends: ${err instanceof Error ? err.message : String(err)}`;
 			}
 		}
-	}
-
-	/** Once every piece is saved: store the seam pairs Separate and Carry made, with the pieces' server ids. */
-	private async storePendingSeams(): Promise<void> {
-		const todo = this.doc.pendingSeams ?? [];
-		if (!todo.length) return;
-		const kept: PendingSeam[] = [];
-		const failed: string[] = [];
-		for (const sp of todo) {
-			const a = this.piece(sp.a.pieceKey);
-			const b = this.piece(sp.b.pieceKey);
-			if (!a || !b || a.retired || b.retired) continue; // a piece cut again or undone: the pair went with it
-			if (a.key.startsWith('new-') || b.key.startsWith('new-')) {
-				kept.push(sp);
-				continue;
-			}
-			try {
-				await seamPairCreate(this.studioId, this.styleId, {
-					label: sp.label,
-					a: { pieceId: a.key, ...edgeEnds(a.geometry, sp.a.edge) },
-					b: { pieceId: b.key, ...edgeEnds(b.geometry, sp.b.edge) },
-					allowedEaseMm: sp.allowedEaseMm,
-					toleranceMm: sp.toleranceMm
-				});
-			} catch (err) {
-				kept.push(sp);
-				failed.push(`${sp.label}: ${err instanceof Error ? err.message : String(err)}`);
-			}
-		}
-		this.doc = { ...this.doc, pendingSeams: kept };
-		if (failed.length) this.saveError = `The pieces were saved, but ${failed.length === 1 ? 'a seam pair was' : `${failed.length} seam pairs were`} not stored (${failed.join('; ')}).`;
 	}
 
 	/** Re-read the style's seam pairs (after storing or moving them). */
@@ -725,8 +732,8 @@ export class EditorState {
 	}
 }
 
-/** A piece made by an operation in the editor, not saved yet: its history starts with separate_result. */
-function pieceEditNew(key: string, g: Piece, offset: Vec, originParams: Record<string, unknown>): PieceEdit {
+/** A piece made by a multi-piece step in the editor, not saved yet: its history starts with the style change. */
+function pieceEditNew(key: string, g: Piece, offset: Vec): PieceEdit {
 	return {
 		key,
 		name: g.name,
@@ -738,7 +745,7 @@ function pieceEditNew(key: string, g: Piece, offset: Vec, originParams: Record<s
 		geometry: g,
 		steps: [],
 		offset,
-		origin: { op: 'separate_result', params: originParams },
+		origin: { op: 'change_result' },
 		retired: false,
 		readOnly: false
 	};

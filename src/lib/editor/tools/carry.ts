@@ -157,11 +157,16 @@ export const carryTool: ToolDef = {
 			return;
 		}
 		const { chain, styleLine, r } = run;
-		const seamPairIds = chain.pairs.map((p) => s.seamPairs.find((x) => x.id === p.id || x.label === p.id)?.id ?? p.id);
+		// the step as the server recomputes it: the seams as the operation took them, each with its stored pair
+		const op = opPieces(s, chain.keys)!;
+		const seams = chain.pairs.map((p) => {
+			const storedId = s.seamPairs.find((x) => x.id === p.id || x.label === p.id)?.id;
+			return storedId ? { ...op.pairFor(p), storedId } : op.pairFor(p);
+		});
 		const err = s.mergePieces(
 			chain.keys,
 			r.pieces,
-			(i) => ({ from: 'carry', styleLine, fuse: s.input.fuse, residualAs: s.input.residualAs, seamPairIds, part: i === 0 ? `joined ${s.input.fuse} the style line` : `other side, part ${i}` }),
+			{ op: 'carry', params: { seams, styleLine, fuse: s.input.fuse, residualAs: s.input.residualAs } },
 			`${chain.keys.length} panels carried into one seam — ${r.report.summary}`,
 			r.seamPairs,
 			(i, _a, b) => `style seam ${i + 1} (${b.name})`

@@ -12,7 +12,11 @@ function joinRun(s: EditorState) {
 	if (!op) return null;
 	const [a, b] = op.pieces;
 	const name = `${a.name} + ${b.name}`;
-	return { c, a, b, r: join(op.pieces, op.pairFor(c.pair), { wedge: s.input.wedge, name }) };
+	const seam = op.pairFor(c.pair);
+	// the step as the server recomputes it: the seam's edges, and the style's stored pair when one was chosen
+	const stored = s.seamPairs.some((x) => x.id === s.input.seamPairId && x.id === c.pair.id);
+	const params = { seam: stored ? { ...seam, storedId: c.pair.id } : seam, wedge: s.input.wedge, name };
+	return { c, a, b, params, r: join(op.pieces, seam, { wedge: s.input.wedge, name }) };
 }
 
 /** Join: merge two pieces along their shared seam; at a divergence point close the wedge or keep it as a dart. */
@@ -39,11 +43,11 @@ export const joinTool: ToolDef = {
 			s.toolMessage = run.r.error.message;
 			return;
 		}
-		const { c, a, b, r } = run;
+		const { c, a, b, r, params } = run;
 		const err = s.mergePieces(
 			[c.pair.a.pieceId, c.pair.b.pieceId],
 			r.pieces,
-			() => ({ from: 'join', seamPairId: s.input.seamPairId, wedge: s.input.wedge }),
+			{ op: 'join', params },
 			`${a.name} and ${b.name} joined — ${r.report.summary}`
 		);
 		s.toolMessage = err;

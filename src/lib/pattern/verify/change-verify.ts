@@ -200,7 +200,8 @@ export function changeVerify(bases: ReadonlyMap<string, Piece>, steps: readonly 
 			const far = Number.isFinite(diff.distanceMm) ? ` (${diff.distanceMm.toFixed(3)} mm off, ${REPLAY_TOLERANCE_MM} mm allowed)` : '';
 			return fail({ code: 'replay_mismatch', pieceIndex: n, distanceMm: diff.distanceMm, message: `New piece ${n + 1} ("${p.name}") is not what step ${p.step + 1} (${steps[p.step].op}) gives from its sources: ${diff.where}${far}. Nothing was saved.` });
 		}
-		const piece: Piece = { ...computed, name: p.name, cut: p.cut };
+		// name, cut and the name label are the pattern cutter's words for the new piece; the geometry is the server's
+		const piece: Piece = { ...computed, name: p.name, cut: p.cut, labels: p.geometry.labels };
 		out.push({ piece, metrics: pieceMetrics(piece) });
 	}
 	checks.unshift({ code: 'change_replayed', passed: true, step: 0, message: `${steps.length} step${steps.length === 1 ? '' : 's'} recomputed from their sources; ${pieces.length} new piece${pieces.length === 1 ? '' : 's'} as sent, within ${REPLAY_TOLERANCE_MM} mm.` });

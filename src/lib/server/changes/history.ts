@@ -61,7 +61,7 @@ export async function styleHistoryReplay(db: DbOrTx, styleId: string): Promise<P
 					else if (!rc.ok) problems.push(`v1: ${rc.message}`);
 					else {
 						const g = rc.steps[p.step]?.result.pieces[p.result];
-						computed = g ? { ...g, name: stored.name, cut: stored.cut } : null;
+						computed = g ? { ...g, name: stored.name, cut: stored.cut, labels: stored.labels } : null;
 						if (!g) problems.push(`v1: the change has no result ${p.result + 1} at step ${p.step + 1}`);
 					}
 				} else if (recipe.length === 1 && stepStartsHistory(origin.op)) computed = stored;
