@@ -1,13 +1,13 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
-import { recipeReplayStep } from '../../src/lib/pattern/verify/replay';
+import { recipeStepApply } from '../../src/lib/pattern/recipe/registry';
 import { browserLaunch, pageScreenshot } from './chromium';
 import { editorOpen, editorSetUp } from './editor-helpers';
 
 const net = frontBodiceBlock();
 const withAllowance = (() => {
-	const r = recipeReplayStep(net, { op: 'allowance', params: { defaultWidthMm: 10 } });
+	const r = recipeStepApply(net, { op: 'allowance', params: { defaultWidthMm: 10 } });
 	if (!r.ok) throw new Error(r.error.message);
 	return r.piece;
 })();

@@ -3,9 +3,8 @@ import { frontBodiceBlock, FRONT_BLOCK_BUST_POINT } from '../fixtures/front-bodi
 import { outlineNearestLocation, vecDistance, vecLerp, type Vec } from '../kernel';
 import { pieceMetrics } from '../metrics';
 import type { Piece } from '../piece-schema';
-import { recipeReplayStep } from '../verify/replay';
+import { recipeStepApply } from '../recipe/registry';
 import { versionVerify } from '../verify/version-verify';
-import { applyOperation } from './index';
 import { pivot } from './pivot';
 
 /**
@@ -43,7 +42,7 @@ describe('no dart, pleat or slash opens on the fold line', () => {
 			{ op: 'spread', params: { mode: 'hinged', slashes: [{ from: sideSeamPoint, to: onFold, angleRad: 0.1 }] } }
 		];
 		for (const step of steps) {
-			const r = applyOperation(block, step);
+			const r = recipeStepApply(block, step);
 			expect(r.ok, step.op).toBe(false);
 			if (!r.ok) expect(r.error.code, step.op).toBe('target_on_fold');
 		}
@@ -53,7 +52,7 @@ describe('no dart, pleat or slash opens on the fold line', () => {
 		const block = frontBodiceBlock();
 		// what an older browser would have sent: the whole piece turned so the dart sits on the fold edge
 		const step = { op: 'pivot', params: { dartId: 'waist-dart', to: onFold } };
-		const v = versionVerify(block, block, [step], recipeReplayStep);
+		const v = versionVerify(block, block, [step], recipeStepApply);
 		expect(v.ok).toBe(false);
 		if (!v.ok) {
 			expect(v.problem.code).toBe('replay_refused');
@@ -131,7 +130,7 @@ describe('pivoting keeps the side that holds the fold line (else the grainline) 
 		const block = frontBodiceBlock();
 		const d = block.darts.find((x) => x.id === 'waist-dart')!;
 		const at = [vecLerp(d.leg1End, { x: 225, y: 440 }, 0.3), vecLerp(d.leg2End, { x: 0, y: 460 }, 0.2)];
-		const r = applyOperation(block, { op: 'pleat', params: { dartId: 'waist-dart', at, mode: 'equal_intake' } });
+		const r = recipeStepApply(block, { op: 'pleat', params: { dartId: 'waist-dart', at, mode: 'equal_intake' } });
 		if (!r.ok) throw new Error(r.error.message);
 		expect(r.piece.foldLine).toEqual(block.foldLine);
 		for (const y of [100, 250, 450]) expect(outlineNearestLocation(r.piece.outline, { x: 0, y }).distance).toBeLessThan(1e-9);
