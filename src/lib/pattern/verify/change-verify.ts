@@ -54,6 +54,13 @@ export type ChangeVerdict =
 	| { readonly ok: false; readonly problem: ChangeProblem };
 
 const fail = (problem: ChangeProblem): ChangeVerdict => ({ ok: false, problem });
+/** Each piece's metrics once (the checks read them several times; pieces are never mutated). */
+const measured = new WeakMap<Piece, PieceMetrics>();
+function metricsOf(p: Piece): PieceMetrics {
+	let m = measured.get(p);
+	if (!m) measured.set(p, (m = pieceMetrics(p)));
+	return m;
+}
 const deg = (rad: number) => `${((rad * 180) / Math.PI).toFixed(2)}°`;
 const isShaping = (k: string) => (SHAPING_KINDS as readonly string[]).includes(k);
 const isLabelled = (k: string) => (LABELLED_KINDS as readonly string[]).includes(k);
@@ -68,7 +75,7 @@ function stepSeams(step: ChangeStep): SeamPair[] {
 function apexTotals(pieces: readonly Piece[]): Map<string, { angle: number; label: string }> {
 	const out = new Map<string, { angle: number; label: string }>();
 	for (const p of pieces) {
-		for (const t of pieceMetrics(p).apexTotals) {
+		for (const t of metricsOf(p).apexTotals) {
 			const acc = out.get(t.apexId) ?? { angle: 0, label: t.label };
 			acc.angle += t.totalAngleRad;
 			out.set(t.apexId, acc);
@@ -156,8 +163,8 @@ function stepChecks(i: number, step: ChangeStep, o: StepOutcome, stored: readonl
 		checks.push({ code: 'apex_balanced_across_pieces', passed: balanced, step: i, apexId, message: balanced ? `${where}: shaping kept, ${parts}${Math.abs(declared) > tol.angleRad ? `, declared ${deg(declared)}` : ''}.` : `${where}: ${deg(totalAfter - totalBefore - declared)} of shaping is ${totalAfter - totalBefore - declared < 0 ? 'lost' : 'added'} without a declared change: ${parts}.` });
 		if (!balanced) return { checks, problem: { code: 'shaping_not_kept', message: checks[checks.length - 1].message } };
 	}
-	const areaBefore = o.sources.reduce((t, p) => t + pieceMetrics(p).areaMm2, 0);
-	const areaAfter = o.result.pieces.reduce((t, p) => t + pieceMetrics(p).areaMm2, 0);
+	const areaBefore = o.sources.reduce((t, p) => t + metricsOf(p).areaMm2, 0);
+	const areaAfter = o.result.pieces.reduce((t, p) => t + metricsOf(p).areaMm2, 0);
 	const posted = entries.reduce((t, e) => t + e.areaMm2, 0);
 	const areaTol = tol.areaMm2 * Math.max(o.sources.length, o.result.pieces.length);
 	const areaOk = Math.abs(areaAfter - areaBefore - posted) <= areaTol;
@@ -202,7 +209,8 @@ export function changeVerify(bases: ReadonlyMap<string, Piece>, steps: readonly 
 		}
 		// name, cut and the name label are the pattern cutter's words for the new piece; the geometry is the server's
 		const piece: Piece = { ...computed, name: p.name, cut: p.cut, labels: p.geometry.labels };
-		out.push({ piece, metrics: pieceMetrics(piece) });
+		// labels, name and cut do not enter the metrics: the computed piece's serve
+		out.push({ piece, metrics: metricsOf(computed) });
 	}
 	checks.unshift({ code: 'change_replayed', passed: true, step: 0, message: `${steps.length} step${steps.length === 1 ? '' : 's'} recomputed from their sources; ${pieces.length} new piece${pieces.length === 1 ? '' : 's'} as sent, within ${REPLAY_TOLERANCE_MM} mm.` });
 	return { ok: true, pieces: out, ledger, checks };
