@@ -50,8 +50,8 @@ describe('replaying a style\'s history', () => {
 		expect(replay.find((p) => p.pieceId === band.id)?.versions).toBe(2);
 	});
 
-	it('reproduces the heads of every style the tests left in the database', async () => {
-		const styles = await testDb().selectFrom('styles').select('id').execute();
+	it('reproduces the heads of the styles the tests made last (the database outlives runs: the 25 newest)', async () => {
+		const styles = await testDb().selectFrom('styles').select('id').orderBy('created_at', 'desc').limit(25).execute();
 		let pieces = 0;
 		for (const s of styles) {
 			for (const p of await styleHistoryReplay(testDb(), s.id)) {
@@ -60,5 +60,5 @@ describe('replaying a style\'s history', () => {
 			}
 		}
 		expect(pieces).toBeGreaterThan(0);
-	});
+	}, 120_000);
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
 import { rectanglePiece } from '../panels/fixtures/simple-pieces';
-import { ORIGIN_STEP_NAMES, PIECES_STEP_NAMES, piecesForStep, piecesStepApply, RECIPE_STEPS, recipeStepApply, recipeStepSchema, STEP_NAMES, stepSpansPieces, stepStartsHistory } from './registry';
+import { CLIENT_ORIGIN_STEP_NAMES, ORIGIN_STEP_NAMES, PIECES_STEP_NAMES, piecesForStep, piecesStepApply, RECIPE_STEPS, recipeStepApply, recipeStepSchema, STEP_NAMES, stepSpansPieces, stepStartsHistory } from './registry';
 
 describe('recipe registry', () => {
 	it('names every step once, with a schema, and a function unless it starts a history', () => {
@@ -17,6 +17,8 @@ describe('recipe registry', () => {
 	it('tells origins and multi-piece steps apart', () => {
 		expect(ORIGIN_STEP_NAMES).toEqual(['draft', 'import', 'separate_result', 'change_result']);
 		expect(PIECES_STEP_NAMES).toEqual(['separate', 'join', 'carry']);
+		// pieces made from others never start from a client's say-so: they come from a style change
+		expect(CLIENT_ORIGIN_STEP_NAMES).toEqual(['draft', 'import']);
 		expect(stepStartsHistory('draft')).toBe(true);
 		expect(stepStartsHistory('pivot')).toBe(false);
 		expect(stepSpansPieces('carry')).toBe(true);

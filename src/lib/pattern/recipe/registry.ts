@@ -21,6 +21,8 @@ export interface OriginStepDef<P extends Schema = Schema> {
 	readonly schema: P;
 	readonly startsHistory: true;
 	readonly spansPieces: false;
+	/** A client may start a piece with it (drafting, an import); pieces made from others come from a style change. */
+	readonly byClient: boolean;
 }
 export interface PieceStepDef<P extends Schema = Schema> {
 	readonly schema: P;
@@ -38,7 +40,7 @@ export interface PiecesStepDef<P extends Schema = Schema> {
 }
 export type StepDef = OriginStepDef | PieceStepDef | PiecesStepDef;
 
-const origin = <P extends Schema>(schema: P): OriginStepDef<P> => ({ schema, startsHistory: true, spansPieces: false });
+const origin = <P extends Schema>(schema: P, byClient: boolean): OriginStepDef<P> => ({ schema, startsHistory: true, spansPieces: false, byClient });
 const onPiece = <P extends Schema>(schema: P, apply: (piece: Piece, params: z.output<P>) => OperationResult): PieceStepDef<P> => ({ schema, startsHistory: false, spansPieces: false, apply });
 /** Dart operations refuse a piece whose darts or pleats are not in its outline. */
 const dartOp = <P extends Schema>(schema: P, apply: (piece: Piece, params: z.output<P>) => OperationResult): PieceStepDef<P> =>
@@ -78,10 +80,10 @@ function pivotStep(piece: Piece, { movingLeg, ...p }: z.output<typeof pivotStepS
 
 export const RECIPE_STEPS = {
 	// origins: a piece's first version
-	draft: origin(S.draftParamsSchema),
-	import: origin(S.importParamsSchema),
-	separate_result: origin(S.separateResultParamsSchema),
-	change_result: origin(S.changeResultParamsSchema),
+	draft: origin(S.draftParamsSchema, true),
+	import: origin(S.importParamsSchema, true),
+	separate_result: origin(S.separateResultParamsSchema, false),
+	change_result: origin(S.changeResultParamsSchema, false),
 	// dart operations
 	pivot: dartOp(pivotStepSchema, pivotStep),
 	share: dartOp(shareParamsSchema, share),
@@ -116,6 +118,8 @@ export function stepDef(op: string): StepDef | null {
 }
 export const stepStartsHistory = (op: string): boolean => stepDef(op)?.startsHistory === true;
 export const stepSpansPieces = (op: string): boolean => stepDef(op)?.spansPieces === true;
+/** Origins a client may send as a piece's first version: pieces made from others are saved as a style change. */
+export const CLIENT_ORIGIN_STEP_NAMES = ORIGIN_STEP_NAMES.filter((n) => (RECIPE_STEPS[n] as OriginStepDef).byClient);
 
 /** A step as the API takes it: a known name and parameters (checked against its schema when applied). */
 export const recipeStepSchema = z.object({ op: z.enum(STEP_NAMES as [StepName, ...StepName[]]), params: z.unknown().optional() });

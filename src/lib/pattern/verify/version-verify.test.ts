@@ -54,6 +54,10 @@ describe('server verification of a submitted version', () => {
 		const first = versionVerify(null, block, [{ op: 'pivot', params: pivotParams }], replay);
 		expect(!first.ok && first.problem.code).toBe('recipe_missing');
 		expect(versionVerify(null, block, [{ op: 'draft' }], replay).ok).toBe(true);
+		// a piece made by a multi-piece step cannot be posted as a first version: it is recomputed in a style change
+		const merged = versionVerify(null, block, [{ op: 'change_result', params: { step: 0, result: 0 } }], replay);
+		expect(!merged.ok && merged.problem.message).toMatch(/saved as a style change/);
+		expect(versionVerify(null, block, [{ op: 'separate_result' }], replay).ok).toBe(false);
 	});
 
 	it('refuses an operation that changes a dart angle without posting it to the ledger', () => {

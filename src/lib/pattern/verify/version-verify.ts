@@ -4,7 +4,7 @@ import { pieceMetrics, type PieceMetrics } from '../metrics';
 import type { OperationResult } from '../operation-result';
 import { resultProblems } from '../operation-result';
 import type { Piece } from '../piece-schema';
-import { ORIGIN_STEP_NAMES, stepStartsHistory } from '../recipe/registry';
+import { CLIENT_ORIGIN_STEP_NAMES } from '../recipe/registry';
 import { pieceGeometryDifference, REPLAY_TOLERANCE_MM } from './piece-compare';
 
 /** One step of a recipe as stored: an operation name and its parameters. */
@@ -63,9 +63,12 @@ export function versionVerify(
 		return fail('invalid_geometry', `The piece's geometry is not sound: ${problems.slice(0, 3).join(' ')}`, problems);
 	}
 	if (parent === null) {
-		const origin = recipe.length === 1 && stepStartsHistory(recipe[0].op);
+		const origin = recipe.length === 1 && (CLIENT_ORIGIN_STEP_NAMES as readonly string[]).includes(recipe[0].op);
 		if (!origin) {
-			return fail('recipe_missing', `A first version must come from ${ORIGIN_STEP_NAMES.join(', ')}, as a single recipe step.`);
+			return fail(
+				'recipe_missing',
+				`A first version must come from ${CLIENT_ORIGIN_STEP_NAMES.join(' or ')}, as a single recipe step; a piece made by separate, join or carry is saved as a style change, recomputed from its sources.`
+			);
 		}
 		return { ok: true, piece: submitted, metrics: pieceMetrics(submitted), ledger: [], checks: [] };
 	}
