@@ -6,7 +6,7 @@ import type { Browser, Page } from 'playwright-core';
 import { pathBoundingBox } from '../../src/lib/geometry';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, dragOnPiece, editorOpen, lerp, signUp } from './editor-helpers';
+import { clickOnPiece, dragOnPiece, editorOpen, lerp, saveFromPanel, signUp } from './editor-helpers';
 
 const readouts = (page: Page) => page.locator('[data-testid="tool-readouts"]').textContent();
 
@@ -73,11 +73,14 @@ describe('carry on a style drafted in the test, from the interface', () => {
 		// Front, Back, the band below the line and the three parts above it
 		await expect.poll(() => page.evaluate(() => window.dartelierEditor!.pieceKeys().length)).toBe(6);
 
-		await page.fill('#save-message', 'Panel shaping carried into the underbust seam');
-		await page.click('button:has-text("Save version")');
-		await page.waitForSelector('[data-testid="save-report"]', { timeout: 30_000 });
-		await page.waitForSelector('button:has-text("Save version")', { timeout: 30_000 });
+		// one change through the change endpoint; each new piece is named on saving (none keeps a panel's label)
+		const changes: number[] = [];
+		page.on('response', (r) => {
+			if (r.request().method() === 'POST' && r.url().endsWith('/changes')) changes.push(r.status());
+		});
+		await saveFromPanel(page, 'Panel shaping carried into the underbust seam', ['Midriff band', 'Upper front, centre', 'Upper front, middle', 'Upper front, side']);
 		expect(await page.locator('[role="alert"]').count()).toBe(0);
+		expect(changes).toEqual([201]);
 
 		// reload: the band and the upper panels are there, every stored check passed, every ledger balanced
 		await editorOpen(page, editorUrl);
@@ -85,6 +88,7 @@ describe('carry on a style drafted in the test, from the interface', () => {
 		const shown = (style.pieces as { id: string; name: string; shown: { checks: { passed: boolean }[] } | null }[]).filter((p) => p.shown);
 		const made = shown.filter((p) => !['Front', 'Back'].includes(p.name) && !/^Under-structure panel \d$/.test(p.name));
 		expect(made).toHaveLength(4);
+		expect(made.map((p) => p.name).sort()).toEqual(['Midriff band', 'Upper front, centre', 'Upper front, middle', 'Upper front, side']);
 		for (const p of made) expect(p.shown!.checks.filter((c) => !c.passed)).toEqual([]);
 		const carried = (style.seamPairs as { label: string; aPieceId: string; bPieceId: string }[]).filter((sp) => sp.label.startsWith('style seam'));
 		expect(carried).toHaveLength(3);
