@@ -1,4 +1,5 @@
 import { pieceSchema, type Piece } from '$lib/pattern/piece-schema';
+import { pieceGeometryDifference } from '$lib/pattern/verify/piece-compare';
 import { changeRecompute, type ChangeStep } from '$lib/pattern/recipe/change';
 import { recipeStepApply, stepStartsHistory } from '$lib/pattern/recipe/registry';
 import type { DbOrTx } from '../db';
@@ -15,7 +16,12 @@ export interface PieceReplay {
 	problems: string[];
 }
 
-const same = (a: Piece, b: Piece) => JSON.stringify(a) === JSON.stringify(b);
+/**
+ * How far a replayed piece may lie from the stored one (mm): the same code gives the very same numbers;
+ * versions stored by an earlier release of the kernel may differ in the last digits.
+ */
+export const HISTORY_TOLERANCE_MM = 1e-6;
+const same = (a: Piece, b: Piece) => JSON.stringify(a) === JSON.stringify(b) || pieceGeometryDifference(a, b, HISTORY_TOLERANCE_MM) === null;
 
 /**
  * Replays a style's history from its first versions: a piece made by a style change is recomputed from
