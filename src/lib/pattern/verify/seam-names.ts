@@ -26,6 +26,9 @@ import type { Piece } from '../piece-schema';
 
 export type SeamName = string;
 
+/** What naming needs of a seam: its ends and its outline segments (any grouping of the stitching line). */
+export type SeamStretch = Pick<SeamMetrics, 'startPoint' | 'endPoint' | 'segmentIndices'>;
+
 interface SeamShape {
 	readonly start: Vec;
 	readonly end: Vec;
@@ -36,7 +39,7 @@ interface SeamShape {
 	readonly endTangent: Vec;
 }
 
-function seamShape(piece: Piece, seam: SeamMetrics): SeamShape {
+function seamShape(piece: Piece, seam: SeamStretch): SeamShape {
 	const segs = seam.segmentIndices.map((i) => piece.outline.segments[i]);
 	const lengths = segs.map((s) => segmentLength(s));
 	const total = lengths.reduce((a, b) => a + b, 0);
@@ -70,7 +73,7 @@ function pieceSide(piece: Piece): 'front' | 'back' | null {
 	return null;
 }
 
-export function seamNames(piece: Piece, seams: readonly SeamMetrics[]): SeamName[] {
+export function seamNames(piece: Piece, seams: readonly SeamStretch[]): SeamName[] {
 	const box = pathBoundingBox(piece.outline);
 	const w = Math.max(1e-9, box.maxX - box.minX);
 	const h = Math.max(1e-9, box.maxY - box.minY);
