@@ -45,6 +45,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/members': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/compare': { GET: ALL_ROLES },
+	'/studios/[studioId]/styles/[styleId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/edit': { GET: ALL_ROLES },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)
 	'/studios/[studioId]/measurements': { GET: ALL_ROLES },

@@ -1,13 +1,15 @@
 import { pieceMetrics } from '$lib/pattern/metrics';
 import { pieceSchema } from '$lib/pattern/piece-schema';
-import { metricsCompare } from '$lib/pattern/verify/metrics-compare';
+import { piecesCompare } from '$lib/pattern/verify/metrics-compare';
 import type { DbOrTx } from '../db';
 import type { Role } from '../db/schema';
 import { pieceOr404, versionOr404 } from './access';
 
 /**
  * Two versions (of one piece, or two pieces of the studio) side by side. Metrics are recomputed from
- * the stored geometry, so the comparison never depends on what a client once sent.
+ * the stored geometry, so the comparison never depends on what a client once sent; sewn seams are
+ * compared with darts folded out and named by where they run, and only what a pattern cutter would
+ * check is flagged (COMPARE_THRESHOLDS).
  */
 export async function versionsComparison(
 	db: DbOrTx,
@@ -29,5 +31,5 @@ export async function versionsComparison(
 			ledger: (v.metrics as { ledger?: unknown[] } | null)?.ledger ?? []
 		});
 	}
-	return { a: sides[0], b: sides[1], rows: metricsCompare(sides[0].metrics, sides[1].metrics) };
+	return { a: sides[0], b: sides[1], rows: piecesCompare(sides[0].geometry, sides[1].geometry) };
 }
