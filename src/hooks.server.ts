@@ -41,8 +41,21 @@ async function sessionLoad(event: Event): Promise<string | undefined> {
 	return undefined;
 }
 
-/** Answers the request itself when the authz table says no; undefined lets it through. */
-async function gate(event: Event): Promise<Response | undefined> {
+/**
+ * What the authz table says of a request: a response to answer with, or `undefined` to let it
+ * through, or `{ renderDenied }`: a page the reader may not see, which the route's own check
+ * (`requireRole` in its load) answers with the app's error page in the app's layout.
+ */
+type Gate = Response | undefined | { renderDenied: 403 | 404; message: string };
+
+function plainDenial(status: 403 | 404): Response {
+	return new Response(status === 404 ? 'Not Found' : 'Forbidden', {
+		status,
+		headers: { 'content-type': 'text/plain; charset=utf-8' }
+	});
+}
+
+async function gate(event: Event): Promise<Gate> {
 	const routeId = event.route.id;
 	const api = isApi(event.url.pathname);
 	if (routeId === null) return api ? jsonError(404, 'not_found', 'No such API route.') : undefined;
@@ -63,10 +76,27 @@ async function gate(event: Event): Promise<Response | undefined> {
 	if (d.ok) return undefined;
 	if (api) return jsonError(d.status, defaultErrorCode(d.status), d.message);
 	if (d.status === 401) return new Response(null, { status: 303, headers: { location: signInPath(event.url) } });
-	return new Response(d.status === 404 ? 'Not Found' : 'Forbidden', {
-		status: d.status,
-		headers: { 'content-type': 'text/plain; charset=utf-8' }
-	});
+	if (event.request.method === 'GET' || event.request.method === 'HEAD') return { renderDenied: d.status, message: d.message };
+	return plainDenial(d.status);
+}
+
+/**
+ * A denied page is rendered by its route, whose load makes the same check and throws the same
+ * error. Should a route ever answer otherwise (a load that forgot its check), nothing of it leaves:
+ * the plain denial goes out instead, and the log says which route to fix.
+ */
+async function deniedPage(
+	event: Event,
+	resolve: Parameters<Handle>[0]['resolve'],
+	denied: { renderDenied: 403 | 404; message: string },
+	nonce: string
+): Promise<Response> {
+	const response = await resolve(event, { transformPageChunk: ({ html }) => scriptsWithNonce(html, nonce) });
+	if (response.status === denied.renderDenied) return response;
+	console.error(
+		`[authz] ${event.route.id} answered ${response.status} where the table denies it (${denied.renderDenied}): its load must call requireRole`
+	);
+	return plainDenial(denied.renderDenied);
 }
 
 /** Cross-site writes to the JSON API are refused, as SvelteKit already does for form posts. */
@@ -112,6 +142,7 @@ async function respond(event: Event, resolve: Parameters<Handle>[0]['resolve'], 
 		isApi(event.url.pathname) && foreignOrigin(event)
 			? jsonError(403, 'forbidden', 'Cross-site requests are not allowed.')
 			: await gate(event);
+	if (early && 'renderDenied' in early) return deniedPage(event, resolve, early, nonce); // cookies go out with the page
 	if (early) {
 		const response = mutable(early);
 		if (cookieChange) response.headers.append('set-cookie', cookieChange);

@@ -79,6 +79,21 @@ describe('invitations', () => {
 		expect(members.members).toHaveLength(2);
 	});
 
+	it('the invitation e-mail and the invitation page name the role in words ("pattern cutter", "sample room")', async () => {
+		const { studio, client } = await ownerWithStudio();
+		for (const [role, words] of [['patterncutter', 'pattern cutter'], ['sampleroom', 'sample room']] as const) {
+			const email = `role-words-${role}-${uniq()}@example.test`;
+			expect((await client.api('POST', `/api/studios/${studio.id}/invitations`, { email, role })).status).toBe(201);
+			const mail = await app.mailbox.waitFor(email);
+			expect(mail.text).toContain(`as ${words}.`);
+			expect(mail.html).toContain(`as ${words}.`);
+			expect(`${mail.text}${mail.html}`).not.toContain(role);
+			const page = await (await new Client(app.baseUrl).get(linkPath(mail.links, '/invite/'))).text();
+			expect(page).toContain(`>${words}</span>`);
+			expect(page).not.toMatch(new RegExp(`>${role}<`));
+		}
+	});
+
 	it('someone with an account joins when signed in with the invited address', async () => {
 		const { studio, client } = await ownerWithStudio();
 		const invitee = await userMake('invitee');

@@ -489,6 +489,7 @@ export class EditorState {
 	}
 	escape() {
 		if (this.helpOpen) this.helpOpen = false;
+		else if (this.calibrateOpen) this.calibrateOpen = false;
 		else if (this.tool !== 'select' && (this.input.target || this.input.points.length || this.input.handles.length || this.input.edgePicks.length)) this.cancelTool();
 		else if (this.tool !== 'select') this.setTool('select');
 		else this.selection.segmentIndex = -1;

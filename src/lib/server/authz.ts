@@ -1,6 +1,6 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { db } from './db';
-import type { Role } from './db/schema';
+import { ROLES, roleLabel, type Role } from '../roles';
 import { membershipsRole } from './repositories/memberships';
 import { uuidSchema } from './validation';
 
@@ -24,7 +24,7 @@ import { uuidSchema } from './validation';
 export type Rule = 'public' | 'signed_in' | readonly Role[];
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
-export const ALL_ROLES = ['owner', 'patterncutter', 'designer', 'sampleroom'] as const satisfies readonly Role[];
+export const ALL_ROLES = ROLES;
 export const OWNER = ['owner'] as const satisfies readonly Role[];
 /** Write pieces and versions. */
 export const EDITORS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
@@ -135,7 +135,7 @@ export async function decide(event: Event, rule: Rule): Promise<Decision> {
 	const role = await roleOf(event.locals, studioId.data, user.id);
 	if (!role) return { ok: false, status: 404, message: 'No such studio.' };
 	if (!rule.includes(role)) {
-		return { ok: false, status: 403, message: `Your role (${role}) does not allow this in this studio.` };
+		return { ok: false, status: 403, message: `Your role (${roleLabel(role)}) does not allow this in this studio.` };
 	}
 	return { ok: true, user, studioId: studioId.data, role };
 }

@@ -1,8 +1,8 @@
 import { z } from 'zod';
+import { ROLES } from '../roles';
 
 /** Field rules shared by forms and the JSON API. */
-export const ROLES = ['owner', 'patterncutter', 'designer', 'sampleroom'] as const;
-export const roleSchema = z.enum(ROLES);
+export const roleSchema = z.enum(ROLES, 'Choose one of the roles: owner, pattern cutter, designer or sample room.');
 
 export const emailSchema = z
 	.string()

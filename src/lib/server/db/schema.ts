@@ -1,7 +1,8 @@
 import type { ColumnType, Generated } from 'kysely';
+import type { Role } from '../../roles';
 
 /** Database tables as Kysely sees them. Keep in step with `migrations/`. */
-export type Role = 'owner' | 'patterncutter' | 'designer' | 'sampleroom';
+export type { Role };
 
 type CreatedAt = ColumnType<Date, Date | string | undefined, never>;
 

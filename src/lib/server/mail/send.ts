@@ -1,4 +1,5 @@
 import nodemailer from 'nodemailer';
+import { roleLabel, type Role } from '../../roles';
 
 export interface Mail {
 	to: string;
@@ -58,14 +59,14 @@ export function invitationMail(input: {
 	to: string;
 	studioName: string;
 	inviterName: string;
-	role: string;
+	role: Role;
 	link: string;
 }): Mail {
 	return linkMail(
 		input.to,
 		`Join ${input.studioName} on Dartelier`,
 		[
-			`${input.inviterName} invites you to the studio "${input.studioName}" on Dartelier as ${input.role}.`,
+			`${input.inviterName} invites you to the studio "${input.studioName}" on Dartelier as ${roleLabel(input.role)}.`,
 			'Open this link to create your account or, if you already have one, to join the studio:'
 		],
 		input.link,

@@ -1,0 +1,68 @@
+// The demo studio of our own scenario (fixtures/demo-studio.json), seeded into the test database for
+// browser tests that look at the app in each role's view, and a sign-in as one of its people.
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import demo from '../../fixtures/demo-studio.json';
+import { dbCreate } from '../../src/lib/server/db/index';
+import type { Role } from '../../src/lib/roles';
+import { measurementSetDuplicate } from '../../src/lib/server/measurements/sets';
+import { usersByEmail } from '../../src/lib/server/repositories/users';
+import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
+
+export interface DemoStudio {
+	studioId: string;
+	styleId: string;
+	/** measurement sets: a chart row and another, for the set pages and compare */
+	setIds: [string, string];
+	/** a client set (editable, unlike the charts) */
+	clientSetId: string;
+	users: { email: string; name: string; role: Role }[];
+	password: string;
+}
+
+/** Seeds the demo studio (idempotent) and finds the ids its pages need. */
+export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
+	const db = dbCreate(databaseUrl, 2);
+	try {
+		const { studioId } = await demoStudioSeed(db);
+		const style = await db.selectFrom('styles').select('id').where('studio_id', '=', studioId).orderBy('created_at').executeTakeFirstOrThrow();
+		const sets = await db.selectFrom('measurement_sets').select('id').where('studio_id', '=', studioId).orderBy('id').limit(2).execute();
+		if (sets.length < 2) throw new Error('the demo studio has fewer than two measurement sets');
+		const NAME = 'Fitting copy for the page checks';
+		let client = await db.selectFrom('measurement_sets').select('id').where('studio_id', '=', studioId).where('name', '=', NAME).executeTakeFirst();
+		if (!client) {
+			const cutter = await usersByEmail(db, demo.users.find((u) => u.role === 'patterncutter')!.email);
+			client = await measurementSetDuplicate(db, studioId, sets[0].id, cutter!.id, NAME);
+		}
+		return {
+			studioId,
+			styleId: style.id,
+			setIds: [sets[0].id, sets[1].id],
+			clientSetId: client.id,
+			users: demo.users as DemoStudio['users'],
+			password: demo.password
+		};
+	} finally {
+		await db.destroy();
+	}
+}
+
+/** A fresh browser context signed in as the demo studio's member with this role. */
+export async function demoSignIn(
+	browser: Browser,
+	baseUrl: string,
+	studio: DemoStudio,
+	role: Role,
+	options: Parameters<Browser['newContext']>[0] = {}
+): Promise<{ context: BrowserContext; page: Page }> {
+	const user = studio.users.find((u) => u.role === role);
+	if (!user) throw new Error(`the demo studio has no ${role}`);
+	const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, ...options });
+	const page = await context.newPage();
+	const r = await page.request.post(`${baseUrl}/signin`, {
+		form: { email: user.email, password: studio.password },
+		headers: { origin: baseUrl, accept: 'text/html' },
+		maxRedirects: 0
+	});
+	if (r.status() !== 303) throw new Error(`sign-in as ${user.email} failed: ${r.status()}`);
+	return { context, page };
+}
