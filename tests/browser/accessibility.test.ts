@@ -26,6 +26,7 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/[studioId]/styles/[styleId]': `${s}/styles/${d.styleId}`,
 		'/studios/[studioId]/styles/[styleId]/compare': `${s}/styles/${d.styleId}/compare`,
 		'/studios/[studioId]/styles/[styleId]/edit': `${s}/styles/${d.styleId}/edit`,
+		'/studios/[studioId]/styles/[styleId]/pieces/[pieceId]/versions/[versionId]': `${s}/styles/${d.styleId}/pieces/${d.signedOff.pieceId}/versions/${d.signedOff.versionId}`,
 		'/studios/[studioId]/styles/new': `${s}/styles/new?set=${d.setIds[0]}`,
 		'/studios/[studioId]/measurements': `${s}/measurements`,
 		'/studios/[studioId]/measurements/new': `${s}/measurements/new`,

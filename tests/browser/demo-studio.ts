@@ -11,6 +11,8 @@ import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
 export interface DemoStudio {
 	studioId: string;
 	styleId: string;
+	/** a signed-off version of one of its pieces (every role, the sample room included, may open it) */
+	signedOff: { pieceId: string; versionId: string };
 	/** measurement sets: a chart row and another, for the set pages and compare */
 	setIds: [string, string];
 	/** a client set (editable, unlike the charts) */
@@ -25,6 +27,13 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 	try {
 		const { studioId } = await demoStudioSeed(db);
 		const style = await db.selectFrom('styles').select('id').where('studio_id', '=', studioId).orderBy('created_at').executeTakeFirstOrThrow();
+		const signed = await db
+			.selectFrom('piece_versions')
+			.innerJoin('pieces', 'pieces.id', 'piece_versions.piece_id')
+			.select(['pieces.id as pieceId', 'piece_versions.id as versionId'])
+			.where('pieces.style_id', '=', style.id)
+			.where('piece_versions.state', '=', 'signed_off')
+			.executeTakeFirstOrThrow();
 		const sets = await db.selectFrom('measurement_sets').select('id').where('studio_id', '=', studioId).orderBy('id').limit(2).execute();
 		if (sets.length < 2) throw new Error('the demo studio has fewer than two measurement sets');
 		const NAME = 'Fitting copy for the page checks';
@@ -36,6 +45,7 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 		return {
 			studioId,
 			styleId: style.id,
+			signedOff: signed,
 			setIds: [sets[0].id, sets[1].id],
 			clientSetId: client.id,
 			users: demo.users as DemoStudio['users'],
