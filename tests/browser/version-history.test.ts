@@ -64,6 +64,9 @@ describe('a piece history: open a version, compare it with the head', () => {
 		expect(await page.locator('tr[data-flagged="true"]').count()).toBe(0);
 		expect(await page.getByTestId('compare-verdict').textContent()).toContain('Nothing here a pattern cutter needs to check');
 		expect(await page.getByTestId('compare-thresholds').textContent()).toContain('common practice');
+		// long version messages stay inside their chooser: the page never scrolls sideways
+		const overflowPx = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+		expect(overflowPx).toBeLessThanOrEqual(0);
 		expect(problems).toEqual([]);
 		await context.close();
 	});
