@@ -3,20 +3,10 @@ import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
 import type { PiecesStepName } from '$lib/pattern/recipe/registry';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
 import { cutInstructionText } from '$lib/pattern/export/svg';
+import { edgeEnds } from '$lib/pattern/panels/seam-edge-ends';
 import type { EditorDoc, PieceEdit } from './doc';
-import { edgeEnds } from './tools/seams';
 
-/**
- * A multi-piece step made in the editor and not saved yet (separate, join, carry): its sources by editor
- * key (a stored piece, or a new piece an earlier pending step made) with the steps made on each before
- * it, and the editor keys of its results. All pending steps are saved as one style change.
- */
-export interface PendingStep {
-	readonly op: PiecesStepName;
-	readonly params: unknown;
-	readonly sources: readonly { readonly key: string; readonly recipe: readonly RecipeStepData[] }[];
-	readonly resultKeys: readonly string[];
-}
+export type { PendingStep } from './doc';
 
 /** The cut instructions a new piece can be given, in the naming dialog's order. */
 export const CUT_INSTRUCTIONS: readonly CutInstruction[] = ['pair', 'single', 'on_fold'];

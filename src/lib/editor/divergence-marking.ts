@@ -1,6 +1,6 @@
 import { outlineNearestPoint } from '$lib/geometry';
 import type { Apex, Piece } from '$lib/pattern/piece-schema';
-import type { EditorState } from './editor-state.svelte';
+import type { MoveContext } from './moves/context';
 
 /**
  * Marking a divergence point in the editor: an apex on the stitching line that is not one yet (the
@@ -11,11 +11,11 @@ export function divergenceMarkable(piece: Piece, apex: Apex): boolean {
 	return apex.kind !== 'divergence' && outlineNearestPoint(piece.outline, apex.point).distance <= 0.1;
 }
 
-export function divergenceMark(s: EditorState, key: string, apexId: string): string | null {
-	const p = s.piece(key);
+export function divergenceMark(ctx: MoveContext, key: string, apexId: string): string | null {
+	const p = ctx.piece(key);
 	const apex = p?.geometry.apexes.find((a) => a.id === apexId);
 	if (!p || !apex) return 'No such point on this piece.';
-	return s.apply(key, { op: 'divergence_point', params: { apexId } }, `${p.name}: ${apex.label || apex.id} marked as a divergence point`);
+	return ctx.apply(key, { op: 'divergence_point', params: { apexId } }, { label: `${p.name}: ${apex.label || apex.id} marked as a divergence point` });
 }
 
 /** Apexes a separate leaves on the outline of its parts (proposed as divergence points). */

@@ -1,13 +1,25 @@
 import type { Path, Vec } from '$lib/geometry';
 import type { LedgerEntry } from '$lib/pattern/ledger';
 import type { CutInstruction, Piece } from '$lib/pattern/piece-schema';
+import type { PiecesStepName } from '$lib/pattern/recipe/registry';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
-import type { PendingStep } from './change-save';
 
 /**
  * The editor's document: immutable values, so that one history step is one replaced document and
  * undo/redo just swaps documents (structural sharing keeps it cheap).
  */
+
+/**
+ * A multi-piece step made in the editor and not saved yet (separate, join, carry): its sources by editor
+ * key (a stored piece, or a new piece an earlier pending step made) with the steps made on each before
+ * it, and the editor keys of its results. All pending steps are saved as one style change.
+ */
+export interface PendingStep {
+	readonly op: PiecesStepName;
+	readonly params: unknown;
+	readonly sources: readonly { readonly key: string; readonly recipe: readonly RecipeStepData[] }[];
+	readonly resultKeys: readonly string[];
+}
 
 /** One step of the recipe since the base version, with what it posted to the shaping ledger. */
 export interface StepRecord {
@@ -67,11 +79,6 @@ export interface EditorDoc {
 	readonly pendingSteps?: readonly PendingStep[];
 	/** Seam pairs between new pieces, saved with the change (part of the document, so undo drops them). */
 	readonly pendingSeams?: readonly PendingSeam[];
-}
-
-export interface HistoryEntry {
-	readonly doc: EditorDoc;
-	readonly label: string;
 }
 
 export function pieceIsDirty(p: PieceEdit): boolean {

@@ -1,6 +1,6 @@
 import { tinykeys } from 'tinykeys';
 import type { EditorState } from './editor-state.svelte';
-import { TOOL_ORDER, TOOLS } from './tools/registry';
+import { MOVE_ORDER, MOVES } from './moves/registry';
 
 /** Keyboard shortcuts of the editor (tinykeys; `$mod` is Cmd on Mac, Ctrl elsewhere). */
 
@@ -11,26 +11,26 @@ export interface Shortcut {
 }
 
 export function shortcuts(s: EditorState): Shortcut[] {
-	const tools: Shortcut[] = TOOL_ORDER.filter((id) => !TOOLS[id].edits || s.canEdit).map((id) => ({
-		keys: TOOLS[id].key,
-		label: `${TOOLS[id].name} tool`,
-		run: (st) => st.setTool(id)
+	const tools: Shortcut[] = MOVE_ORDER.filter((id) => !MOVES[id].edits || s.canEdit).map((id) => ({
+		keys: MOVES[id].key,
+		label: `${MOVES[id].name} tool`,
+		run: (st) => st.setMove(id)
 	}));
 	return [
 		...tools,
 		{ keys: '$mod+z', label: 'Undo', run: (st) => st.undo() },
 		{ keys: '$mod+Shift+z', label: 'Redo', run: (st) => st.redo() },
 		{ keys: '$mod+y', label: 'Redo', run: (st) => st.redo() },
-		{ keys: '+', label: 'Zoom in', run: (st) => st.zoomBy(1.25) },
-		{ keys: '=', label: 'Zoom in', run: (st) => st.zoomBy(1.25) },
-		{ keys: '-', label: 'Zoom out', run: (st) => st.zoomBy(0.8) },
-		{ keys: '0', label: 'Fit the style', run: (st) => st.fit() },
-		{ keys: '1', label: 'True size (1:1 as calibrated)', run: (st) => st.trueSize() },
-		{ keys: 'ArrowLeft', label: 'Pan left', run: (st) => st.panBy(60, 0) },
-		{ keys: 'ArrowRight', label: 'Pan right', run: (st) => st.panBy(-60, 0) },
-		{ keys: 'ArrowUp', label: 'Pan up', run: (st) => st.panBy(0, 60) },
-		{ keys: 'ArrowDown', label: 'Pan down', run: (st) => st.panBy(0, -60) },
-		{ keys: 'Enter', label: 'Apply the tool', run: (st) => st.commitTool() },
+		{ keys: '+', label: 'Zoom in', run: (st) => st.camera.zoomBy(1.25) },
+		{ keys: '=', label: 'Zoom in', run: (st) => st.camera.zoomBy(1.25) },
+		{ keys: '-', label: 'Zoom out', run: (st) => st.camera.zoomBy(0.8) },
+		{ keys: '0', label: 'Fit the style', run: (st) => st.camera.fit() },
+		{ keys: '1', label: 'True size (1:1 as calibrated)', run: (st) => st.camera.trueSize() },
+		{ keys: 'ArrowLeft', label: 'Pan left', run: (st) => st.camera.panBy(60, 0) },
+		{ keys: 'ArrowRight', label: 'Pan right', run: (st) => st.camera.panBy(-60, 0) },
+		{ keys: 'ArrowUp', label: 'Pan up', run: (st) => st.camera.panBy(0, 60) },
+		{ keys: 'ArrowDown', label: 'Pan down', run: (st) => st.camera.panBy(0, -60) },
+		{ keys: 'Enter', label: 'Apply the tool', run: (st) => st.commitMove() },
 		{ keys: 'Escape', label: 'Cancel the tool / close', run: (st) => st.escape() },
 		{ keys: 'Shift+?', label: 'Show these shortcuts', run: (st) => (st.helpOpen = !st.helpOpen) }
 	];
@@ -52,7 +52,7 @@ export function keyboardBind(target: Window, s: EditorState): () => void {
 			const t = e.target as HTMLElement | null;
 			if (field && sc.keys !== 'Escape' && !(sc.keys === 'Enter' && t?.dataset.toolField !== undefined)) return;
 			if (!field && sc.keys === 'Enter' && t && (t.tagName === 'BUTTON' || t.tagName === 'A')) return;
-			if (sc.keys === 'Enter' && s.tool === 'select') return;
+			if (sc.keys === 'Enter' && s.move.id === 'select') return;
 			e.preventDefault();
 			sc.run(s);
 		};

@@ -1,7 +1,7 @@
 import { segmentFlatten, type Vec } from '$lib/geometry';
 import type { Hit, Snap } from './hit';
 import { PALETTE } from './palette';
-import type { OverlayItem } from './tools/types';
+import type { OverlayItem } from './moves/types';
 
 /** Hover, selection, snap marker and the tool's overlay, painted in world millimetres. */
 export interface OverlayData {

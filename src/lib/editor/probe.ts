@@ -22,16 +22,16 @@ declare global {
 export function testProbe(s: EditorState): () => void {
 	const canvas = () => document.querySelector('[data-testid="editor-canvas"]')?.getBoundingClientRect();
 	window.dartelierEditor = {
-		pieceKeys: () => s.visible.map((p) => p.key),
-		pieceNamed: (name) => s.visible.find((p) => p.name === name)?.key ?? null,
+		pieceKeys: () => s.docs.visible.map((p) => p.key),
+		pieceNamed: (name) => s.docs.visible.find((p) => p.name === name)?.key ?? null,
 		toPage(key, local) {
-			const p = s.piece(key);
+			const p = s.docs.piece(key);
 			const r = canvas();
-			const scr = s.toScreen({ x: local.x + (p?.offset.x ?? 0), y: local.y + (p?.offset.y ?? 0) });
+			const scr = s.camera.toScreen({ x: local.x + (p?.offset.x ?? 0), y: local.y + (p?.offset.y ?? 0) });
 			return { x: scr.x + (r?.left ?? 0), y: scr.y + (r?.top ?? 0) };
 		},
-		geometry: (key) => JSON.parse(JSON.stringify(s.piece(key)?.geometry ?? null)),
-		historyLength: () => s.past.length
+		geometry: (key) => JSON.parse(JSON.stringify(s.docs.piece(key)?.geometry ?? null)),
+		historyLength: () => s.docs.past.length
 	};
 	return () => {
 		delete window.dartelierEditor;

@@ -2,7 +2,7 @@ import type { SeamPair } from '$lib/pattern/panels';
 import { edgeEnds } from '$lib/pattern/panels/seam-edge-ends';
 import type { SeamPairInfo } from './api';
 import { seamPairCreate, seamPairDelete } from './api';
-import type { EditorState } from './editor-state.svelte';
+import type { PieceEdit } from './doc';
 
 /**
  * Pairing seams by hand: two edges picked on two pieces (Join or True seam: click the two ends of an
@@ -13,9 +13,19 @@ import type { EditorState } from './editor-state.svelte';
 /** Seams paired by hand are sewn to match, trued to 1/16 in (reference-values row 25, C/P). */
 export const PAIRED_SEAM_TOLERANCE_MM = 25.4 / 16;
 
-export async function seamsPair(s: EditorState, pair: SeamPair, label: string, allowedEaseMm = 0): Promise<string | null> {
-	const a = s.piece(pair.a.pieceId);
-	const b = s.piece(pair.b.pieceId);
+/** What pairing seams needs of the editor. */
+export interface SeamPairingHost {
+	readonly studioId: string;
+	readonly styleId: string;
+	readonly seamPairs: readonly SeamPairInfo[];
+	readonly docs: { piece(key: string | null): PieceEdit | null };
+	refreshSeamPairs(): Promise<void>;
+	announce: string;
+}
+
+export async function seamsPair(s: SeamPairingHost, pair: SeamPair, label: string, allowedEaseMm = 0): Promise<string | null> {
+	const a = s.docs.piece(pair.a.pieceId);
+	const b = s.docs.piece(pair.b.pieceId);
 	if (!a || !b || a.retired || b.retired) return 'Both pieces must be on the table.';
 	if (a.key === b.key) return 'Pick the matching edge on another piece.';
 	if (a.key.startsWith('new-') || b.key.startsWith('new-')) return 'Save the new pieces first: a seam pair joins stored pieces.';
@@ -31,28 +41,26 @@ export async function seamsPair(s: EditorState, pair: SeamPair, label: string, a
 		return `The seam pair was not stored: ${e instanceof Error ? e.message : String(e)}`;
 	}
 	await s.refreshSeamPairs();
-	s.input.edgePicks = [];
 	s.announce = `${a.name} and ${b.name} paired${label ? ` (${label})` : ''}.`;
 	return null;
 }
 
-export async function seamsUnpair(s: EditorState, seamPairId: string): Promise<string | null> {
+export async function seamsUnpair(s: SeamPairingHost, seamPairId: string): Promise<string | null> {
 	const sp = s.seamPairs.find((x) => x.id === seamPairId);
 	try {
 		await seamPairDelete(s.studioId, s.styleId, seamPairId);
 	} catch (e) {
 		return `The seam pair was not removed: ${e instanceof Error ? e.message : String(e)}`;
 	}
-	if (s.input.seamPairId === seamPairId) s.input.seamPairId = null;
 	await s.refreshSeamPairs();
 	s.announce = `${sp?.label || 'Seam pair'} unpaired.`;
 	return null;
 }
 
 /** The stored seam pairs one of whose edges is on the piece, with the other piece's name. */
-export function seamPairsOfPiece(s: EditorState, key: string | null): { pair: SeamPairInfo; other: string }[] {
+export function seamPairsOfPiece(s: SeamPairingHost, key: string | null): { pair: SeamPairInfo; other: string }[] {
 	if (!key) return [];
 	return s.seamPairs
 		.filter((sp) => sp.aPieceId === key || sp.bPieceId === key)
-		.map((sp) => ({ pair: sp, other: s.piece(sp.aPieceId === key ? sp.bPieceId : sp.aPieceId)?.name ?? 'a piece not on the table' }));
+		.map((sp) => ({ pair: sp, other: s.docs.piece(sp.aPieceId === key ? sp.bPieceId : sp.aPieceId)?.name ?? 'a piece not on the table' }));
 }
