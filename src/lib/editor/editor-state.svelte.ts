@@ -12,6 +12,8 @@ import type { MoveContext } from './moves/context';
 import { moveDef, MOVES, type MoveState } from './moves/registry';
 import type { CommitOutcome, MoveId, MovePreview, PointerInfo } from './moves/types';
 import { Camera, type SettingsStore } from './state/camera.svelte';
+import { divergenceMark } from './divergence-marking';
+import type { Offer } from './moves/offers';
 import { declaredOf, docStepApply, recipeOf, type DocEdit, type StepExtras } from './state/doc-edits';
 import { DocumentStore } from './state/document.svelte';
 import { piecesLaidOut } from './state/layout';
@@ -76,6 +78,9 @@ export class EditorState {
 			get selectedKey() {
 				return self.selection.pieceKey;
 			},
+			get selection() {
+				return self.selection;
+			},
 			piece: (key) => this.docs.piece(key),
 			local: (key, world) => {
 				const o = this.docs.offsetOf(key);
@@ -86,6 +91,8 @@ export class EditorState {
 			showSnap: (snap) => (this.selection.snapShown = snap),
 			select: (key) => (this.selection.pieceKey = key),
 			selectHit: (hit) => this.selection.hit(hit),
+			selectPart: (key, part) => this.selection.part(key, part),
+			togglePanel: (key) => this.selection.togglePanel(key),
 			apply: (key, step, extras) => this.apply(key, step, extras),
 			edit: (make) => this.edit((doc) => make(doc, Date.now().toString(36))),
 			announce: (t) => (this.announce = t)
@@ -250,6 +257,24 @@ export class EditorState {
 	pointerUp(p: PointerInfo, moved: boolean) {
 		const then = moveDef(this.move).up?.(this.ctx, this.move, p, moved);
 		if (then === 'commit' && this.preview?.canCommit) this.commitMove();
+	}
+	/** An offered move chosen (its button, its key): it starts on what is selected. */
+	offerStart(o: Offer) {
+		if (o.id === 'divergence_point') {
+			const key = this.selection.pieceKey;
+			const apexId = this.selection.apexId;
+			if (key && apexId) this.moveMessage = divergenceMark(this.ctx, key, apexId);
+			return;
+		}
+		if (o.id === 'pair_with') {
+			this.setMove('true_seam');
+			if (this.move.id === 'true_seam' && o.seam) {
+				this.move.seamPairId = null;
+				this.move.edgePicks = [{ pieceKey: o.seam.pieceKey, at: o.seam.from }, { pieceKey: o.seam.pieceKey, at: o.seam.to }];
+			}
+			return;
+		}
+		this.setMove(o.id);
 	}
 	/** A piece picked in a form: the move starts over on it. */
 	moveOnPiece(key: string) {

@@ -1,6 +1,7 @@
 import { tinykeys } from 'tinykeys';
 import type { EditorState } from './editor-state.svelte';
 import { MOVE_ORDER, MOVES } from './moves/registry';
+import { OFFER_KEYS, offersFor, type OfferId } from './moves/offers';
 
 /** Keyboard shortcuts of the editor (tinykeys; `$mod` is Cmd on Mac, Ctrl elsewhere). */
 
@@ -16,8 +17,19 @@ export function shortcuts(s: EditorState): Shortcut[] {
 		label: `${MOVES[id].name} tool`,
 		run: (st) => st.setMove(id)
 	}));
+	// the offers that are not moves of their own: run only when the selection offers them
+	const offered = (id: OfferId) => (st: EditorState) => {
+		const o = offersFor(st.ctx)?.moves.find((m) => m.id === id);
+		if (o) st.offerStart(o);
+	};
 	return [
 		...tools,
+		...(s.canEdit
+			? [
+					{ keys: OFFER_KEYS.divergence_point, label: 'Mark the selected apex as a divergence point', run: offered('divergence_point') },
+					{ keys: OFFER_KEYS.pair_with, label: 'Pair the selected seam with…', run: offered('pair_with') }
+				]
+			: []),
 		{ keys: '$mod+z', label: 'Undo', run: (st) => st.undo() },
 		{ keys: '$mod+Shift+z', label: 'Redo', run: (st) => st.redo() },
 		{ keys: '$mod+y', label: 'Redo', run: (st) => st.redo() },

@@ -10,6 +10,8 @@ export interface OverlayData {
 	readonly selectedEdge: { offset: Vec; segment: Parameters<typeof segmentFlatten>[0] } | null;
 	readonly selectedPoint: Vec | null;
 	readonly snap: Snap | null;
+	/** What is selected (a dart, a seam pair, panels), in world mm. */
+	readonly selectionItems: readonly OverlayItem[];
 	readonly items: readonly OverlayItem[];
 	readonly itemsOffset: Vec;
 }
@@ -54,8 +56,14 @@ export function paintOverlay(ctx: CanvasRenderingContext2D, d: OverlayData): voi
 		ctx.fillStyle = PALETTE.indigo;
 		ctx.fillRect(d.selectedPoint.x - 3.5 * px, d.selectedPoint.y - 3.5 * px, 7 * px, 7 * px);
 	}
-	const o = d.itemsOffset;
-	for (const it of d.items) {
+	paintItems(ctx, d.selectionItems, { x: 0, y: 0 }, px);
+	paintItems(ctx, d.items, d.itemsOffset, px);
+	paintSnap(ctx, d.snap, px);
+	ctx.restore();
+}
+
+function paintItems(ctx: CanvasRenderingContext2D, items: readonly OverlayItem[], o: Vec, px: number) {
+	for (const it of items) {
 		if (it.kind === 'line') {
 			ctx.strokeStyle = tones[it.tone];
 			ctx.lineWidth = 1.5 * px;
@@ -86,23 +94,26 @@ export function paintOverlay(ctx: CanvasRenderingContext2D, d: OverlayData): voi
 			ctx.fillText(it.text, it.at.x + o.x, it.at.y + o.y - 3 * px);
 		}
 	}
-	if (d.snap && d.snap.kind !== 'free') {
-		const p = d.snap.world;
+}
+
+function paintSnap(ctx: CanvasRenderingContext2D, snap: Snap | null, px: number) {
+	if (snap && snap.kind !== 'free') {
+		const p = snap.world;
 		ctx.strokeStyle = PALETTE.indigo;
 		ctx.lineWidth = 1.5 * px;
 		const r = 6 * px;
 		ctx.beginPath();
-		if (d.snap.kind === 'grid') {
+		if (snap.kind === 'grid') {
 			ctx.moveTo(p.x - r, p.y);
 			ctx.lineTo(p.x + r, p.y);
 			ctx.moveTo(p.x, p.y - r);
 			ctx.lineTo(p.x, p.y + r);
-		} else if (d.snap.kind === 'midpoint') {
+		} else if (snap.kind === 'midpoint') {
 			ctx.moveTo(p.x, p.y - r);
 			ctx.lineTo(p.x + r, p.y + r);
 			ctx.lineTo(p.x - r, p.y + r);
 			ctx.closePath();
-		} else if (d.snap.kind === 'edge') {
+		} else if (snap.kind === 'edge') {
 			ctx.moveTo(p.x - r, p.y - r);
 			ctx.lineTo(p.x + r, p.y + r);
 			ctx.moveTo(p.x + r, p.y - r);
@@ -115,7 +126,6 @@ export function paintOverlay(ctx: CanvasRenderingContext2D, d: OverlayData): voi
 		ctx.fillStyle = PALETTE.indigo;
 		ctx.textAlign = 'left';
 		ctx.textBaseline = 'top';
-		ctx.fillText(d.snap.kind, p.x + r + 2 * px, p.y + r);
+		ctx.fillText(snap.kind, p.x + r + 2 * px, p.y + r);
 	}
-	ctx.restore();
 }

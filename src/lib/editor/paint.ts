@@ -70,7 +70,7 @@ function arrowPath(ctx: CanvasRenderingContext2D, a: Arrow, head: number) {
 	ctx.stroke();
 }
 
-export function paintPiece(ctx: CanvasRenderingContext2D, d: PieceDrawing, look: PieceLook, pxPerMm: number, showCut = true): void {
+export function paintPiece(ctx: CanvasRenderingContext2D, d: PieceDrawing, look: PieceLook, pxPerMm: number, showCut = true, lifted = false): void {
 	const px = 1 / pxPerMm;
 	const p = pathsOf(d);
 	const colour = lineColour(look);
@@ -81,7 +81,16 @@ export function paintPiece(ctx: CanvasRenderingContext2D, d: PieceDrawing, look:
 	ctx.globalAlpha = look === 'ghost' ? 0.22 : 1;
 	if (look !== 'ghost') {
 		ctx.fillStyle = PALETTE.pieceFill;
+		// a piece lying on the table casts a faint shadow, as paper does (only where it is drawn once, cached)
+		if (lifted) {
+			ctx.shadowColor = PALETTE.shadow;
+			ctx.shadowBlur = 5;
+			ctx.shadowOffsetX = 1;
+			ctx.shadowOffsetY = 2;
+		}
 		ctx.fill(showCut && d.cut.length ? p.cut : p.stitch, 'nonzero');
+		ctx.shadowColor = 'transparent';
+		ctx.shadowBlur = 0;
 	}
 	// cut line: solid, only where the piece has a seam allowance (a net piece has none to draw)
 	ctx.strokeStyle = colour;

@@ -114,7 +114,7 @@ export const carryMove: MoveDef<CarryState> = {
 	icon: 'M4 4 L4 20 M10 4 L9 20 M15 4 L16 20 M20 4 L20 20 M2 13 C8 16 16 16 22 13',
 	edits: true,
 	// the panels of one row, in seam order (only pieces the stored seam pairs join)
-	fresh: (ctx, prev) => ({ id: 'carry', keys: carryRow(ctx), handles: [], dragIndex: -1, awaitingEnd: false, fuse: prev?.fuse ?? 'below', residualAs: prev?.residualAs ?? 'dart' }),
+	fresh: (ctx, prev) => ({ id: 'carry', keys: ctx.selection.panels.length >= 2 ? [...ctx.selection.panels] : carryRow(ctx), handles: [], dragIndex: -1, awaitingEnd: false, fuse: prev?.fuse ?? 'below', residualAs: prev?.residualAs ?? 'dart' }),
 	started: (st) => st.handles.length > 0,
 	begin(ctx, st) {
 		// laid as drafted, so that one style line crosses them as they are sewn

@@ -30,7 +30,9 @@ export function editableSelected(ctx: MoveContext): string | null {
 /** A move on a dart starts on the selected piece and its first dart. */
 export function dartStart(ctx: MoveContext): OnDart {
 	const key = editableSelected(ctx);
-	return { pieceKey: key, dartId: ctx.piece(key)?.geometry.darts[0]?.id ?? null };
+	const darts = ctx.piece(key)?.geometry.darts ?? [];
+	const chosen = darts.find((d) => d.id === ctx.selection.dartId);
+	return { pieceKey: key, dartId: (chosen ?? darts[0])?.id ?? null };
 }
 
 /** Point at a signed distance along the outline from a point on it (wraps round). */

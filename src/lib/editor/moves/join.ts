@@ -3,7 +3,7 @@ import { pieceMetrics } from '$lib/pattern/metrics';
 import { docMerge } from '../state/doc-edits';
 import { fmtArea, fmtDeg } from '../units';
 import type { MoveContext } from './context';
-import { chosenPair, firstUsablePair, opPieces, pairOverlay, seamPickDown, type SeamPick } from './seams';
+import { chosenPair, firstUsablePair, selectedPairOr, opPieces, pairOverlay, seamPickDown, type SeamPick } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem } from './types';
 
 export interface JoinState extends SeamPick {
@@ -33,7 +33,7 @@ export const joinMove: MoveDef<JoinState> = {
 	key: 'j',
 	icon: 'M3 5 L11 5 L11 19 L3 19 Z M13 5 L21 5 L21 19 L13 19 Z M9 12 L15 12 M13 10 L15 12 L13 14',
 	edits: true,
-	fresh: (ctx, prev) => ({ id: 'join', seamPairId: firstUsablePair(ctx), edgePicks: [], wedge: prev?.wedge ?? 'close' }),
+	fresh: (ctx, prev) => ({ id: 'join', seamPairId: selectedPairOr(ctx, firstUsablePair(ctx)), edgePicks: [], wedge: prev?.wedge ?? 'close' }),
 	started: (st) => st.edgePicks.length > 0,
 	hint(_ctx, st) {
 		const n = st.edgePicks.length;

@@ -106,6 +106,16 @@ export function firstUsablePair(ctx: MoveContext, editable = true): string | nul
 	return ctx.seamPairs.find((sp) => storedPairUsable(ctx, sp, editable))?.id ?? null;
 }
 
+/** The seam pair selected on the table (if its pieces can be changed), else the one given. */
+export function selectedPairOr(ctx: MoveContext, fallback: string | null): string | null {
+	const sel = ctx.seamPairs.find((sp) => sp.id === ctx.selection.seamPairId);
+	if (sel && storedPairUsable(ctx, sel, true)) return sel.id;
+	// two panels picked together: the pair that joins them
+	const [a, b] = ctx.selection.panels;
+	const joining = ctx.selection.panels.length === 2 ? ctx.seamPairs.find((sp) => (sp.aPieceId === a && sp.bPieceId === b) || (sp.aPieceId === b && sp.bPieceId === a)) : undefined;
+	return joining?.id ?? fallback;
+}
+
 /** Overlay points of the seam, in world mm. */
 export function pairOverlay(ctx: MoveContext, pair: SeamPair): { a: Vec[]; b: Vec[] } {
 	const w = (key: string, path: Path): Vec[] => {

@@ -1,5 +1,10 @@
 import { vecAdd, vecSub, type Vec } from '$lib/geometry';
+import { outlineNearestPoint } from '$lib/geometry';
+import { dartNear, type Hit } from '../hit';
+import type { SelectedPart } from '../state/selection.svelte';
 import { docPieceMoved } from '../state/doc-edits';
+import type { MoveContext } from './context';
+import { storedPair } from './seams';
 import type { MoveDef } from './types';
 
 export interface SelectState {
@@ -19,9 +24,15 @@ export const selectMove: MoveDef<SelectState> = {
 	started: () => false,
 	hint: () => 'Click a piece, an edge or a point to select it; drag a piece to move it on the table; drag the paper to pan.',
 	down(ctx, st, p) {
+		if (p.shift && p.hit) {
+			ctx.togglePanel(p.hit.pieceKey);
+			return false;
+		}
 		ctx.selectHit(p.hit);
 		const piece = p.hit && ctx.piece(p.hit.pieceKey);
 		if (!piece) return false;
+		const part = partAt(ctx, p.hit!, ctx.local(piece.key, p.world));
+		if (part) ctx.selectPart(piece.key, part);
 		st.drag = { key: piece.key, start: p.world, from: piece.offset, offset: null };
 		return true;
 	},
@@ -36,3 +47,23 @@ export const selectMove: MoveDef<SelectState> = {
 		if (moved && d && offset) ctx.edit((doc) => docPieceMoved(doc, d.key, offset));
 	}
 };
+
+/** The part of a piece a click chose: an apex, else a dart near it, else the stored seam pair of the edge. */
+export function partAt(ctx: MoveContext, h: Hit, local: { x: number; y: number }): SelectedPart | null {
+	const g = ctx.piece(h.pieceKey)?.geometry;
+	if (!g) return null;
+	if (h.kind === 'apex') {
+		const a = g.apexes.find((x) => x.point.x === h.local.x && x.point.y === h.local.y);
+		if (a) return { apexId: a.id };
+	}
+	const dartId = dartNear(g, local, ctx.tolMm(10));
+	if (dartId) return { dartId };
+	if (h.kind !== 'edge' && h.kind !== 'point') return null;
+	for (const sp of ctx.seamPairs) {
+		if (sp.aPieceId !== h.pieceKey && sp.bPieceId !== h.pieceKey) continue;
+		const pair = storedPair(ctx, sp);
+		const edge = pair && (sp.aPieceId === h.pieceKey ? pair.a.edge : pair.b.edge);
+		if (edge && outlineNearestPoint(edge, h.local).distance <= ctx.tolMm(4)) return { seamPairId: sp.id };
+	}
+	return null;
+}

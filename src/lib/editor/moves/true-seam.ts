@@ -6,7 +6,7 @@ import type { Piece } from '$lib/pattern/piece-schema';
 import { fmtLength, fmtLengthSigned } from '../units';
 import type { SeamEdit } from '../doc';
 import type { MoveContext } from './context';
-import { chosenPair, firstUsablePair, opPieces, pairOverlay, pathEnd, pathStart, seamPickDown, type SeamPick } from './seams';
+import { chosenPair, firstUsablePair, selectedPairOr, opPieces, pairOverlay, pathEnd, pathStart, seamPickDown, type SeamPick } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem } from './types';
 
 export interface TrueSeamState extends SeamPick {
@@ -65,7 +65,7 @@ export const trueSeamMove: MoveDef<TrueSeamState> = {
 	key: 't',
 	icon: 'M4 8 L20 8 M4 16 L17 16 M20 13 L20 19 M4 5 L4 11 M4 13 L4 19 M20 5 L20 11',
 	edits: true,
-	fresh: (ctx, prev) => ({ id: 'true_seam', seamPairId: firstUsablePair(ctx), edgePicks: [], adjust: prev?.adjust ?? 'none' }),
+	fresh: (ctx, prev) => ({ id: 'true_seam', seamPairId: selectedPairOr(ctx, firstUsablePair(ctx)), edgePicks: [], adjust: prev?.adjust ?? 'none' }),
 	started: (st) => st.edgePicks.length > 0,
 	hint(_ctx, st) {
 		const n = st.edgePicks.length;

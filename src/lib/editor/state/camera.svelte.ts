@@ -1,4 +1,5 @@
 import type { BoundingBox, Vec } from '$lib/geometry';
+import { PAPER_GRID_KEY, type PaperGrid } from '../paint-grid';
 import type { LengthUnit } from '../units';
 import { CALIBRATION_KEY, DEFAULT_PX_PER_MM, fitBox, MAX_TRUE_FACTOR, screenToWorld, UNIT_KEY, worldToScreen, zoomAbout, type View } from '../view';
 
@@ -23,6 +24,8 @@ export class Camera {
 	viewH = $state(600);
 	calibration = $state(DEFAULT_PX_PER_MM);
 	unit = $state<LengthUnit>('mm');
+	/** The pattern paper: a cross every 2 cm or every inch. */
+	paperGrid = $state<PaperGrid>('2cm');
 
 	private readonly content: () => BoundingBox;
 	private readonly settings: SettingsStore | null;
@@ -35,6 +38,8 @@ export class Camera {
 			if (Number.isFinite(c) && c > 0.5 && c < 50) this.calibration = c;
 			const u = settings.getItem(UNIT_KEY);
 			if (u === 'mm' || u === 'cm' || u === 'in') this.unit = u;
+			const g = settings.getItem(PAPER_GRID_KEY);
+			this.paperGrid = g === '1in' || g === '2cm' ? g : this.unit === 'in' ? '1in' : '2cm';
 		}
 		this.scale = this.calibration;
 	}
@@ -97,6 +102,10 @@ export class Camera {
 	setUnit(u: LengthUnit) {
 		this.unit = u;
 		this.settings?.setItem(UNIT_KEY, u);
+	}
+	setPaperGrid(g: PaperGrid) {
+		this.paperGrid = g;
+		this.settings?.setItem(PAPER_GRID_KEY, g);
 	}
 	/** Pointer tolerance in mm (a few screen pixels). */
 	tolMm(px = 8): number {

@@ -145,6 +145,14 @@ describe('the camera', () => {
 		expect(again.calibration).toBe(5);
 		expect(again.unit).toBe('in');
 	});
+	it('remembers the pattern paper chosen, and starts on inches for a user who measures in inches', () => {
+		const store = new Map<string, string>([[UNIT_KEY, 'in']]);
+		const settings = { getItem: (k: string) => store.get(k) ?? null, setItem: (k: string, v: string) => void store.set(k, v) };
+		const c = new Camera(() => box, settings);
+		expect(c.paperGrid).toBe('1in');
+		c.setPaperGrid('2cm');
+		expect(new Camera(() => box, settings).paperGrid).toBe('2cm');
+	});
 	it('turns a few screen pixels into millimetres at the current zoom', () => {
 		const c = new Camera(() => box, null);
 		c.scale = 4;
@@ -161,6 +169,20 @@ describe('the selection', () => {
 		expect([s.pieceKey, s.segmentIndex, s.point]).toEqual(['b', -1, null]);
 		s.hit(null);
 		expect(s.pieceKey).toBe('b');
+	});
+	it('selects a dart, an apex or a seam pair of the piece, and panels picked together', () => {
+		const s = new Selection();
+		s.piece('a');
+		s.part('a', { dartId: 'd1' });
+		expect([s.pieceKey, s.dartId, s.apexId]).toEqual(['a', 'd1', null]);
+		s.part('b', { seamPairId: 'p' });
+		expect([s.pieceKey, s.dartId, s.seamPairId]).toEqual(['b', null, 'p']);
+		s.togglePanel('c');
+		expect(s.panels).toEqual(['b', 'c']);
+		s.togglePanel('b');
+		expect(s.panels).toEqual(['c']);
+		s.piece('a');
+		expect(s.panels).toEqual([]);
 	});
 	it('moves to a shown piece when its piece is gone, and follows a new key', () => {
 		const s = new Selection();
