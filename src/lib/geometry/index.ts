@@ -27,3 +27,4 @@ export * from './checks';
 export * from './flatten';
 export * from './simplify';
 export * from './nearest';
+export * from './snap';
