@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import { pivot } from '../../src/lib/pattern/operations/pivot';
 import { reshape } from '../../src/lib/pattern/verify/reshape';
+import { reshapeChanges, reshapeDeclaredEntries } from '../../src/lib/pattern/reshape-declaration';
 import { pieceMetrics } from '../../src/lib/pattern/metrics';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { versionSave } from '../../src/lib/server/versions/save';
@@ -149,6 +150,46 @@ describe('saving versions', () => {
 			]
 		});
 		expect(r.status).toBe(201);
+	});
+
+	it('accepts a hand reshape of the waist with the entries the reshape declaration proposes, and refuses it without', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const params = { moves: [{ from: { x: 225, y: 440 }, to: { x: 225, y: 446 } }] };
+		const moved = reshape(block, params);
+		if (!moved.ok) throw new Error(moved.error.message);
+		const body = { baseVersionId: v1, message: 'side waist lowered after the fitting', geometry: moved.piece, recipe: [{ op: 'reshape', params }] };
+		const bare = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, body);
+		expect(bare.status).toBe(422);
+		expect((await bare.json()).error.code).toBe('shaping_not_kept');
+		const changes = reshapeChanges(block, moved.piece);
+		const declared = reshapeDeclaredEntries(changes, { area: { choice: 'other', note: 'longer at the side for the toile' } });
+		if (!declared.ok) throw new Error('expected entries');
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { ...body, declared: declared.entries });
+		expect(r.status).toBe(201);
+		const saved = await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions/${(await r.json()).version.id}`);
+		const ledger = (await saved.json()).version.metrics.ledger as { kind: string; note?: string }[];
+		expect(ledger).toContainEqual(expect.objectContaining({ kind: 'other', note: 'longer at the side for the toile' }));
+	});
+
+	it('refuses (400) a change declared as "other" without a note, naming the field', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const params = { moves: [{ from: { x: 225, y: 440 }, to: { x: 225, y: 446 } }] };
+		const moved = reshape(block, params);
+		if (!moved.ok) throw new Error(moved.error.message);
+		const declared = reshapeDeclaredEntries(reshapeChanges(block, moved.piece));
+		if (!declared.ok) throw new Error('expected entries');
+		const r = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
+			baseVersionId: v1,
+			message: 'side waist lowered',
+			geometry: moved.piece,
+			recipe: [{ op: 'reshape', params }],
+			declared: declared.entries.map((e) => ({ ...e, kind: 'other', note: undefined }))
+		});
+		expect(r.status).toBe(400);
+		const err = (await r.json()).error;
+		expect(JSON.stringify(err.fields)).toMatch(/note/);
 	});
 
 	it('stores a seam pair out of tolerance as a warning and refuses sign-off until it is trued', async () => {

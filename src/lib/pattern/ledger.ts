@@ -10,8 +10,15 @@ import type { Piece } from './piece-schema';
 
 /** Kinds that move shaping around an apex: at each apex they must sum to zero. */
 export const SHAPING_KINDS = ['dart', 'pleat', 'tuck', 'seam'] as const;
-/** Kinds that are explicit, labelled changes (allowed to change area, seam length or apex angle). */
-export const LABELLED_KINDS = ['fullness', 'removed_ease', 'clearance', 'trued_seam'] as const;
+/**
+ * Kinds that are explicit, labelled changes (allowed to change area, seam length or apex angle). Their
+ * values are signed: `fullness` is fullness added (or, negative, removed), `removed_ease` ease removed
+ * (or, negative, added). `other` is a change the pattern cutter names in words: it needs a note.
+ */
+export const LABELLED_KINDS = ['fullness', 'removed_ease', 'clearance', 'trued_seam', 'other'] as const;
+
+/** The longest note a labelled change may carry. */
+export const LEDGER_NOTE_MAX_LENGTH = 500;
 
 const finite = () => z.number().refine((n) => Number.isFinite(n), { message: 'must be a finite number' });
 
@@ -30,8 +37,18 @@ export const ledgerEntrySchema = z.object({
 	/** Signed change of the piece area this entry accounts for (mm²). */
 	areaMm2: finite().default(0),
 	/** Signed change of seam length this entry accounts for (mm). */
-	lengthMm: finite().default(0)
+	lengthMm: finite().default(0),
+	/** The pattern cutter's words on why (required for `other`). */
+	note: z.string().trim().max(LEDGER_NOTE_MAX_LENGTH).optional()
+}).refine((e) => e.kind !== 'other' || (e.note ?? '').length > 0, {
+	message: 'Say in a note what an "other" change is.',
+	path: ['note']
 });
+
+/** The labelled entries that need a note and have none (an `other` change must say what it is). */
+export function ledgerEntriesWithoutNote(entries: readonly LedgerEntry[]): LedgerEntry[] {
+	return entries.filter((e) => e.kind === 'other' && !(e.note ?? '').trim());
+}
 
 export type LedgerEntryKind = z.infer<typeof ledgerEntryKindSchema>;
 export type LedgerEntry = z.infer<typeof ledgerEntrySchema>;
@@ -176,9 +193,12 @@ export function shapingChecks(
 			? `Seam length with darts folded out: ${ma.seamLengthMm.toFixed(2)} mm (${fmtMm(lengthChange)}).`
 			: `Seam length with darts folded out changed by ${fmtMm(lengthChange)} (${mb.seamLengthMm.toFixed(2)} → ${ma.seamLengthMm.toFixed(2)} mm) but the ledger accounts for ${fmtMm(lengthPosted)}.`
 	});
-	if (Math.abs(lengthPosted) <= tolerances.lengthMm) {
-		const lb = mb.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
-		const la = ma.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
+	// seams one by one: each keeps its length, or (when the entries declare seam length changes, which may
+	// lengthen one seam and shorten another by as much) the seams change by no more than is declared
+	const lengthDeclared = entries.reduce((s, e) => s + Math.abs(e.lengthMm), 0);
+	const lb = mb.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
+	const la = ma.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
+	if (lengthDeclared <= tolerances.lengthMm) {
 		let problem = '';
 		if (lb.length !== la.length) problem = `the piece had ${lb.length} seams between corners and now has ${la.length}`;
 		else {
@@ -193,6 +213,17 @@ export function shapingChecks(
 			code: 'seam_lengths_each',
 			passed: problem === '',
 			message: problem === '' ? `All ${la.length} seams keep their lengths (darts folded out).` : `Seam lengths not kept: ${problem}.`
+		});
+	} else if (lb.length === la.length) {
+		// sorted pairing gives the least total change any pairing of the seams can give
+		const changed = lb.reduce((s, l, i) => s + Math.abs(la[i] - l), 0);
+		const ok = changed <= lengthDeclared + tolerances.lengthMm * la.length;
+		checks.push({
+			code: 'seam_lengths_each',
+			passed: ok,
+			message: ok
+				? `Seam length changes declared: ${lengthDeclared.toFixed(2)} mm in all.`
+				: `Seams changed by ${changed.toFixed(2)} mm in all (lengthened and shortened) but the ledger declares ${lengthDeclared.toFixed(2)} mm.`
 		});
 	}
 	return checks;

@@ -17,8 +17,9 @@ export type ReshapeParams = z.infer<typeof reshapeParamsSchema>;
 /**
  * Direct manipulation: move outline points (ends and Bézier handles) and the markings that sit on
  * them. It posts nothing to the ledger on purpose: whatever it changes in a dart angle, the area or a
- * seam length must be declared as a labelled change on save (added fullness, removed ease) or the
- * server refuses the version.
+ * seam length must be declared as a labelled change on save (ease or fullness, added or removed, or
+ * other with a note; `reshape-declaration.ts` finds the changes and builds the entries) or the server
+ * refuses the version.
  */
 export function reshape(piece: Piece, raw: unknown): OperationResult {
 	const parsed = reshapeParamsSchema.safeParse(raw);

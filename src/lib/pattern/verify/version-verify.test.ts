@@ -87,6 +87,29 @@ describe('server verification of a submitted version', () => {
 		expect(!v.ok && v.problem.code).toBe('shaping_not_kept');
 	});
 
+	it('refuses a change declared as "other" without a note, and accepts it with one', () => {
+		const dart = block.darts.find((d) => d.id === 'shoulder-dart')!;
+		const params = { moves: [{ from: dart.leg2End, to: { x: dart.leg2End.x + 8, y: dart.leg2End.y + 2 } }] };
+		const m = reshape(block, params);
+		if (!m.ok) throw new Error(m.error.message);
+		const before = pieceMetrics(block);
+		const after = pieceMetrics(m.piece);
+		const entry = ledgerEntry({
+			apexId: 'bp',
+			kind: 'other',
+			refId: 'shoulder-dart',
+			label: 'shoulder dart narrowed by hand',
+			angleRad: after.apexTotals[0].totalAngleRad - before.apexTotals[0].totalAngleRad,
+			areaMm2: after.areaMm2 - before.areaMm2,
+			lengthMm: after.seamLengthMm - before.seamLengthMm
+		});
+		const recipe = [{ op: 'reshape', params }];
+		const bare = versionVerify(block, m.piece, recipe, replay, [entry]);
+		expect(!bare.ok && bare.problem.code).toBe('declaration_incomplete');
+		expect(!bare.ok && bare.problem.message).toMatch(/shoulder dart narrowed by hand/);
+		expect(versionVerify(block, m.piece, recipe, replay, [{ ...entry, note: 'less bust shaping after the fitting' }]).ok).toBe(true);
+	});
+
 	it('refuses unsound geometry (a self-intersecting outline) before anything else', () => {
 		const bow: Piece = {
 			...block,

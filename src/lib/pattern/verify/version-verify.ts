@@ -1,5 +1,5 @@
 import type { LedgerEntry, ShapingCheck } from '../ledger';
-import { LABELLED_KINDS, shapingChecks } from '../ledger';
+import { LABELLED_KINDS, ledgerEntriesWithoutNote, shapingChecks } from '../ledger';
 import { pieceMetrics, type PieceMetrics } from '../metrics';
 import type { OperationResult } from '../operation-result';
 import { resultProblems } from '../operation-result';
@@ -15,7 +15,7 @@ export interface RecipeStepData {
 
 export type ReplayStep = (piece: Piece, step: RecipeStepData) => OperationResult;
 
-export type VerifyProblemCode = 'invalid_geometry' | 'recipe_missing' | 'replay_refused' | 'replay_mismatch' | 'shaping_not_kept';
+export type VerifyProblemCode = 'declaration_incomplete' | 'invalid_geometry' | 'recipe_missing' | 'replay_refused' | 'replay_mismatch' | 'shaping_not_kept';
 
 export interface VerifyProblem {
 	readonly code: VerifyProblemCode;
@@ -43,8 +43,8 @@ function fail(code: VerifyProblemCode, message: string, details?: readonly strin
  * What the server does with a submitted version before storing it (pure, so the browser can run the
  * same check before saving): the geometry must be sound; for a version with a parent, replaying the
  * recipe on the parent must give the submitted geometry within 0.01 mm; and every shaping check must
- * pass (each apex balanced or the change declared as a labelled entry: added fullness, removed ease;
- * area outside the darts kept or declared). Metrics come from the
+ * pass (each apex balanced or the change declared as a labelled entry: added fullness, removed ease,
+ * other with a note; area outside the darts and seam lengths kept or declared). Metrics come from the
  * server's own computation, never from the client.
  */
 export function versionVerify(
@@ -57,6 +57,10 @@ export function versionVerify(
 	const undeclarable = declared.find((e) => !(LABELLED_KINDS as readonly string[]).includes(e.kind));
 	if (undeclarable) {
 		return fail('shaping_not_kept', `Only labelled changes (${LABELLED_KINDS.join(', ')}) can be declared; "${undeclarable.kind}" entries come from operations.`);
+	}
+	const unexplained = ledgerEntriesWithoutNote(declared);
+	if (unexplained.length > 0) {
+		return fail('declaration_incomplete', `A change declared as "other" needs a note saying what it is (${unexplained.map((e) => e.label || e.refId).join('; ')}).`);
 	}
 	const problems = resultProblems(submitted);
 	if (problems.length > 0) {
