@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import Fraction from 'fraction.js';
 import { describe, expect, it } from 'vitest';
-import { inchesEighthsText, inchFractionParse, lengthFieldText, lengthParse, lengthText, mmFromInches } from './units';
+import { areaDifferenceText, areaText, inchesEighthsText, inchFractionParse, lengthDifferenceText, lengthFieldText, lengthParse, lengthReadoutText, lengthText, mmFromInches } from './units';
 
 describe('units', () => {
 	it('converts inches to mm exactly (1 in = 25.4 mm by definition)', () => {
@@ -78,5 +78,26 @@ describe('what was typed is stored exactly, whatever unit it is shown in', () =>
 				return lengthParse(shown, current)!.mm === mm;
 			})
 		);
+	});
+
+	it('shows measured lengths and their differences in each unit, signed', () => {
+		expect(lengthReadoutText(210.24, 'mm')).toBe('210.2 mm');
+		expect(lengthReadoutText(210.24, 'cm')).toBe('21.02 cm');
+		// 1 in = 25.4 mm (definition): 211.1 mm = 8.311 in → 8 5/16
+		expect(lengthReadoutText(211.1, 'in')).toBe('8 5/16 in');
+		expect(lengthDifferenceText(6, 'mm')).toBe('+6.0 mm');
+		expect(lengthDifferenceText(-3.5, 'cm')).toBe('−0.35 cm');
+		expect(lengthDifferenceText(6.35, 'in')).toBe('+1/4 in');
+		// under a sixteenth of an inch the difference is still shown, in hundredths
+		expect(lengthDifferenceText(-0.3, 'in')).toBe('−0.01 in');
+		expect(lengthDifferenceText(0, 'mm')).toBe('±0.0 mm');
+	});
+	it('shows areas in the square of the unit', () => {
+		expect(areaText(84151.4, 'mm')).toBe('84151 mm²');
+		expect(areaText(84151.4, 'cm')).toBe('841.5 cm²');
+		// 645.16 mm² = 1 in² exactly
+		expect(areaText(645.16 * 2.5, 'in')).toBe('2.50 in²');
+		expect(areaDifferenceText(-612, 'cm')).toBe('−6.1 cm²');
+		expect(areaDifferenceText(612, 'mm')).toBe('+612 mm²');
 	});
 });

@@ -134,3 +134,42 @@ export function lengthFieldText(mm: number, unit: LengthUnit): string {
 	}
 	return `${mm} mm`;
 }
+
+const MINUS = '−';
+
+/** Inches to the nearest sixteenth as a mixed number ("6 5/16"); below that, two decimals ("0.01"). */
+function inchesSixteenthsText(inches: number): string {
+	const f = new Fraction(inches).roundTo('1/16');
+	return f.valueOf() === 0 && inches !== 0 ? inches.toFixed(2) : f.toFraction(true);
+}
+
+/** A measured length for readouts, finer than `lengthText`: "210.2 mm", "21.02 cm", "8 5/16 in". */
+export function lengthReadoutText(mm: number, unit: LengthUnit): string {
+	if (!Number.isFinite(mm)) return '—';
+	const sign = mm < 0 ? MINUS : '';
+	const a = Math.abs(mm);
+	if (unit === 'mm') return `${sign}${a.toFixed(1)} mm`;
+	if (unit === 'cm') return `${sign}${(a / MM_PER_CM).toFixed(2)} cm`;
+	return `${sign}${inchesSixteenthsText(a / MM_PER_INCH)} in`;
+}
+
+/** A signed length difference: "+6.0 mm", "−0.35 cm", "+1/4 in" ("±0.0 mm" for none). */
+export function lengthDifferenceText(mm: number, unit: LengthUnit): string {
+	const t = lengthReadoutText(Math.abs(mm), unit);
+	return `${mm > 0 ? '+' : mm < 0 ? MINUS : '±'}${t}`;
+}
+
+/** An area in the square of the unit: "84151 mm²", "841.5 cm²", "130.44 in²". */
+export function areaText(mm2: number, unit: LengthUnit): string {
+	if (!Number.isFinite(mm2)) return '—';
+	const sign = mm2 < 0 ? MINUS : '';
+	const a = Math.abs(mm2);
+	if (unit === 'mm') return `${sign}${a.toFixed(0)} mm²`;
+	if (unit === 'cm') return `${sign}${(a / (MM_PER_CM * MM_PER_CM)).toFixed(1)} cm²`;
+	return `${sign}${(a / (MM_PER_INCH * MM_PER_INCH)).toFixed(2)} in²`;
+}
+
+/** A signed area difference: "+612 mm²", "−6.1 cm²". */
+export function areaDifferenceText(mm2: number, unit: LengthUnit): string {
+	return `${mm2 > 0 ? '+' : mm2 < 0 ? MINUS : '±'}${areaText(Math.abs(mm2), unit)}`;
+}
