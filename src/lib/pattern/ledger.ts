@@ -193,12 +193,12 @@ export function shapingChecks(
 			? `Seam length with darts folded out: ${ma.seamLengthMm.toFixed(2)} mm (${fmtMm(lengthChange)}).`
 			: `Seam length with darts folded out changed by ${fmtMm(lengthChange)} (${mb.seamLengthMm.toFixed(2)} → ${ma.seamLengthMm.toFixed(2)} mm) but the ledger accounts for ${fmtMm(lengthPosted)}.`
 	});
-	// seams one by one: each keeps its length, or (when the entries declare seam length changes, which may
-	// lengthen one seam and shorten another by as much) the seams change by no more than is declared
+	// seams one by one, unless the entries declare seam length changes: a labelled change may lengthen
+	// one seam and shorten another by as much, which the total (checked above) would not show
 	const lengthDeclared = entries.reduce((s, e) => s + Math.abs(e.lengthMm), 0);
-	const lb = mb.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
-	const la = ma.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
 	if (lengthDeclared <= tolerances.lengthMm) {
+		const lb = mb.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
+		const la = ma.seams.map((s) => s.lengthMm).sort((a, b) => a - b);
 		let problem = '';
 		if (lb.length !== la.length) problem = `the piece had ${lb.length} seams between corners and now has ${la.length}`;
 		else {
@@ -213,17 +213,6 @@ export function shapingChecks(
 			code: 'seam_lengths_each',
 			passed: problem === '',
 			message: problem === '' ? `All ${la.length} seams keep their lengths (darts folded out).` : `Seam lengths not kept: ${problem}.`
-		});
-	} else if (lb.length === la.length) {
-		// sorted pairing gives the least total change any pairing of the seams can give
-		const changed = lb.reduce((s, l, i) => s + Math.abs(la[i] - l), 0);
-		const ok = changed <= lengthDeclared + tolerances.lengthMm * la.length;
-		checks.push({
-			code: 'seam_lengths_each',
-			passed: ok,
-			message: ok
-				? `Seam length changes declared: ${lengthDeclared.toFixed(2)} mm in all.`
-				: `Seams changed by ${changed.toFixed(2)} mm in all (lengthened and shortened) but the ledger declares ${lengthDeclared.toFixed(2)} mm.`
 		});
 	}
 	return checks;
