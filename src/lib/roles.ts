@@ -34,5 +34,31 @@ export function roleDuties(role: Role): string {
 	return DUTIES[role];
 }
 
+/**
+ * What the signed-in member may do in a studio, decided once on the server from the authorization
+ * table (`roleCan` in src/lib/server/authz.ts) and given to every page of the studio by its layout's
+ * load as `data.can`. Pages ask `data.can.edit`, never compare role names.
+ */
+export interface Can {
+	/** Draft, edit and save pieces and versions (the editor is read only without it). */
+	readonly edit: boolean;
+	/** Propose a draft version for sign-off. */
+	readonly propose: boolean;
+	/** Sign a version off. */
+	readonly signOff: boolean;
+	/** See versions that are not signed off (drafts, proposals); without it only signed-off versions show. */
+	readonly seeDrafts: boolean;
+	/** Start a style by drafting a block. */
+	readonly createStyles: boolean;
+	/** Create, edit and duplicate measurement sets. */
+	readonly editMeasurements: boolean;
+	/** Change members' roles and remove members. */
+	readonly manageMembers: boolean;
+	/** Invite people to the studio. */
+	readonly invite: boolean;
+	/** Rename the studio. */
+	readonly manageStudio: boolean;
+}
+
 /** The roles in their usual order, each with its label, for choosers. */
 export const ROLE_OPTIONS: readonly { value: Role; label: string }[] = ROLES.map((value) => ({ value, label: LABELS[value] }));

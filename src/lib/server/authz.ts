@@ -1,6 +1,6 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import { db } from './db';
-import { ROLES, roleLabel, type Role } from '../roles';
+import { ROLES, roleLabel, type Can, type Role } from '../roles';
 import { membershipsRole } from './repositories/memberships';
 import { uuidSchema } from './validation';
 
@@ -28,8 +28,12 @@ export const ALL_ROLES = ROLES;
 export const OWNER = ['owner'] as const satisfies readonly Role[];
 /** Write pieces and versions. */
 export const EDITORS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
+/** Sign a version off (the state route lets EDITORS_AND_SIGNERS through; its handler asks for these). */
+export const SIGNERS = ['owner', 'designer'] as const satisfies readonly Role[];
 /** Propose (editors) or sign off (owner, designer): the handler checks which. */
 export const EDITORS_AND_SIGNERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
+/** See versions that are not signed off; the sample room sees signed-off versions only (handlers filter). */
+export const DRAFT_READERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
 
 export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	// pages
@@ -79,6 +83,29 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/measurement-sets/[setId]': { GET: ALL_ROLES, PATCH: EDITORS, DELETE: EDITORS },
 	'/api/studios/[studioId]/measurement-sets/[setId]/duplicate': { POST: EDITORS }
 };
+
+/** Does the table let a member with this role make this request (route id and method)? */
+export function roleMay(role: Role, routeId: string, method: Method): boolean {
+	const rule = AUTHZ[routeId]?.[method];
+	if (rule === undefined) return false;
+	return rule === 'public' || rule === 'signed_in' || rule.includes(role);
+}
+
+/** What a member with this role may do, read from the table above: pages get it as `data.can`. */
+export function roleCan(role: Role): Can {
+	const studio = '/api/studios/[studioId]';
+	return {
+		edit: roleMay(role, `${studio}/pieces/[pieceId]/versions`, 'POST'),
+		propose: (EDITORS as readonly Role[]).includes(role) && roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/state`, 'POST'),
+		signOff: (SIGNERS as readonly Role[]).includes(role) && roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/state`, 'POST'),
+		seeDrafts: (DRAFT_READERS as readonly Role[]).includes(role),
+		createStyles: roleMay(role, '/studios/[studioId]/styles/new', 'POST') && roleMay(role, `${studio}/styles`, 'POST'),
+		editMeasurements: roleMay(role, `${studio}/measurement-sets`, 'POST'),
+		manageMembers: roleMay(role, `${studio}/members/[userId]`, 'PATCH'),
+		invite: roleMay(role, `${studio}/invitations`, 'POST'),
+		manageStudio: roleMay(role, studio, 'PATCH')
+	};
+}
 
 export type Lookup =
 	| { kind: 'rule'; rule: Rule }

@@ -1,17 +1,17 @@
 import type { Role } from '../db/schema';
+import { DRAFT_READERS } from '../authz';
 import type { DbOrTx } from '../db';
 import { ApiError } from '../http-errors';
 import { piecesInStudio, type PieceRow } from '../repositories/pieces';
 import { stylesInStudio, type StyleRow } from '../repositories/styles';
 import { versionsById, type VersionRow } from '../repositories/versions';
 
-/** Who may write pieces and versions, and who may sign a version off (product roles). */
-export { EDITORS } from '../authz';
-export const SIGNERS = ['owner', 'designer'] as const satisfies readonly Role[];
+/** Who may write pieces and versions, and who may sign a version off (product roles, authz.ts). */
+export { EDITORS, SIGNERS } from '../authz';
 
-/** The sample room sees signed-off versions only. */
+/** The sample room sees signed-off versions only (authz.ts `DRAFT_READERS`). */
 export function seesOnlySignedOff(role: Role): boolean {
-	return role === 'sampleroom';
+	return !(DRAFT_READERS as readonly Role[]).includes(role);
 }
 
 export async function styleOr404(db: DbOrTx, studioId: string, styleId: string): Promise<StyleRow> {

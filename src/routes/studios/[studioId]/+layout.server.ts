@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { ALL_ROLES, requireRole } from '$lib/server/authz';
+import { ALL_ROLES, requireRole, roleCan } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { studiosById } from '$lib/server/repositories/studios';
 import type { LayoutServerLoad } from './$types';
@@ -8,5 +8,6 @@ export const load: LayoutServerLoad = async (event) => {
 	const { studioId, role } = await requireRole(event, ALL_ROLES);
 	const studio = await studiosById(db(), studioId);
 	if (!studio) error(404, { message: 'No such studio.', code: 'not_found' });
-	return { studio: { id: studio.id, name: studio.name }, role };
+	// what the member may do, decided once here from the authorization table: pages read `data.can`
+	return { studio: { id: studio.id, name: studio.name }, role, can: roleCan(role) };
 };

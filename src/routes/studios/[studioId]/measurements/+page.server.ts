@@ -4,11 +4,10 @@ import { measurementSetsList } from '$lib/server/measurements';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const { studioId, role } = await requireRole(event, ALL_ROLES);
+	const { studioId } = await requireRole(event, ALL_ROLES);
 	const sets = await measurementSetsList(db(), studioId);
 	const mmOf = (s: (typeof sets)[number], id: string) => s.measurements.find((m) => m.id === id)?.valueMm ?? null;
 	return {
-		canEdit: role === 'owner' || role === 'patterncutter',
 		sets: sets.map((s) => ({
 			id: s.id,
 			name: s.name,
