@@ -106,20 +106,19 @@ export function outlineSelfIntersectionProblems(outline: Outline, tolerance = IN
 /**
  * Every problem of an outline: empty, non-finite coordinates, not closed, too-short segments,
  * self-intersections. Never throws. Non-finite outlines are not checked further.
+ * `selfIntersection: false` leaves out the crossing search (for parts whose construction already rules
+ * crossings out).
  */
-export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}): OutlineProblem[] {
+export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}, options: { selfIntersection?: boolean } = {}): OutlineProblem[] {
 	if (outline.segments.length === 0) return [{ code: 'empty', message: 'The outline has no segments.' }];
 	const closure = tolerances.closure ?? CLOSURE_TOLERANCE_MM;
 	const minLength = tolerances.minSegmentLength ?? MIN_SEGMENT_LENGTH_MM;
 	const intersection = tolerances.intersection ?? INTERSECTION_TOLERANCE_MM;
-	if (plainlyClean(outline, closure, minLength)) return outlineSelfIntersectionProblems(outline, intersection);
+	const crossings = (): OutlineProblem[] => (options.selfIntersection === false ? [] : outlineSelfIntersectionProblems(outline, intersection));
+	if (plainlyClean(outline, closure, minLength)) return crossings();
 	const nonFinite = outlineNonFiniteProblems(outline);
 	if (nonFinite.length > 0) return nonFinite;
-	return [
-		...outlineClosureProblems(outline, closure),
-		...outlineShortSegmentProblems(outline, minLength),
-		...outlineSelfIntersectionProblems(outline, intersection)
-	];
+	return [...outlineClosureProblems(outline, closure), ...outlineShortSegmentProblems(outline, minLength), ...crossings()];
 }
 
 /**

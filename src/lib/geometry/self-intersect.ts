@@ -88,6 +88,18 @@ export function outlineSelfIntersectionsByGrid(chain: SegmentChain, closed = tru
 	return out;
 }
 
+/**
+ * outlineSelfIntersections by testing every pair of segments (n² work): the brute-force reference both
+ * searches are property-tested against. Not for use on large outlines.
+ */
+export function outlineSelfIntersectionsByAllPairs(chain: SegmentChain, closed = true, tolerance = INTERSECTION_TOLERANCE_MM, vertexTolerance = CLOSURE_TOLERANCE_MM): ChainHit[] {
+	const segs = chain.segments;
+	const out = loopHits(segs);
+	for (let i = 0; i < segs.length; i++) for (let j = i + 1; j < segs.length; j++) pairHits(segs, i, j, closed, tolerance, vertexTolerance, out);
+	out.sort((p, q) => p.segmentIndex - q.segmentIndex || p.t - q.t);
+	return out;
+}
+
 /** Loops inside single cubics. */
 function loopHits(segs: readonly Segment[]): ChainHit[] {
 	const out: ChainHit[] = [];

@@ -54,10 +54,11 @@ export function refuse(code: OperationErrorCode, message: string): OperationResu
 /**
  * Problems of a finished piece that make an operation refuse: the kernel's outline checks (touching at
  * an apex is allowed: block darts that share an apex meet there) and the piece's own structure.
+ * `selfIntersection: false` leaves out the crossing search (parts simple by construction).
  */
-export function resultProblems(piece: Piece): string[] {
+export function resultProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
 	const apexPoints = piece.apexes.map((a) => a.point);
-	const outline = outlineProblems(piece.outline).filter(
+	const outline = outlineProblems(piece.outline, {}, options).filter(
 		(p) => !(p.code === 'self-intersection' && p.point && apexPoints.some((a) => vecDistance(a, p.point!) < 1e-3))
 	);
 	return [...outline.map((p) => p.message), ...pieceStructureProblems(piece)];

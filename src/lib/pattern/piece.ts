@@ -1,5 +1,4 @@
 import {
-	segmentEnd,
 	vecAngleBetween,
 	vecDistance,
 	vecLength,
@@ -43,11 +42,18 @@ export function pointsMatch(a: Vec, b: Vec, toleranceMm = POINT_MATCH_TOLERANCE_
 export function wedgeSegmentIndex(outline: Outline, apex: Vec, leg1End: Vec, leg2End: Vec): number {
 	const segs = outline.segments;
 	const n = segs.length;
+	// the apex is matched first, in place (squared distance): the scan runs over every vertex
+	const tol2 = POINT_MATCH_TOLERANCE_MM * POINT_MATCH_TOLERANCE_MM;
+	const ax = apex.x;
+	const ay = apex.y;
 	for (let i = 0; i < n; i++) {
 		const a = segs[i];
-		const b = segs[(i + 1) % n];
-		if (a.kind !== 'line' || b.kind !== 'line') continue;
-		if (!pointsMatch(a.p1, apex) || !pointsMatch(a.p0, leg1End) || !pointsMatch(b.p1, leg2End)) continue;
+		if (a.kind !== 'line') continue;
+		const dx = a.p1.x - ax;
+		const dy = a.p1.y - ay;
+		if (!(dx * dx + dy * dy <= tol2)) continue;
+		const b = segs[i + 1 === n ? 0 : i + 1];
+		if (b.kind !== 'line' || !pointsMatch(a.p1, apex) || !pointsMatch(a.p0, leg1End) || !pointsMatch(b.p1, leg2End)) continue;
 		return i;
 	}
 	return -1;
@@ -134,10 +140,16 @@ export function pieceStructureProblems(piece: Piece): string[] {
 		ids.add(key);
 	};
 	const segs = piece.outline.segments;
-	for (let i = 0; i < segs.length; i++) {
-		const next = segs[(i + 1) % segs.length];
-		if (vecDistance(segmentEnd(segs[i]), next.p0) > 1e-3) {
-			problems.push(`outline is not closed between segment ${i} and segment ${(i + 1) % segs.length}`);
+	const n = segs.length;
+	for (let i = 0; i < n; i++) {
+		const s = segs[i];
+		const end = s.kind === 'line' ? s.p1 : s.p3;
+		const next = segs[i + 1 === n ? 0 : i + 1].p0;
+		const gx = end.x - next.x;
+		const gy = end.y - next.y;
+		// squared, in place (this runs over every vertex); NaN passes here as it did (the outline checks report it)
+		if (gx * gx + gy * gy > 1e-6 && vecDistance(end, next) > 1e-3) {
+			problems.push(`outline is not closed between segment ${i} and segment ${(i + 1) % n}`);
 		}
 	}
 	for (const a of piece.apexes) dup('apex', a.id);

@@ -1,5 +1,5 @@
 import { outlineReverse, segmentMapPoints, type Vec } from '../kernel';
-import { panelPieceProblems } from './fast-checks';
+import { resultProblems } from '../operation-result';
 import type { Dart, LegSide, Piece, Pleat } from '../piece-schema';
 
 /** Piece-level helpers of the panel operations: move every point, reverse, check. */
@@ -74,10 +74,25 @@ export function pieceMirror(piece: Piece, f: (p: Vec) => Vec): Piece {
 	return pieceReverse(pieceMapPoints(piece, f));
 }
 
-/** Problems that make an operation refuse (kernel outline checks + piece structure; see fast-checks.ts). */
+/**
+ * Problems that make a panel operation refuse: the kernel's outline checks and the piece's structure,
+ * as for every operation (resultProblems; touching at an apex is allowed). `selfIntersection: false`
+ * leaves out the crossing search, for parts that are simple by construction.
+ */
 export function pieceProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
-	return panelPieceProblems(piece, options);
+	if (options.selfIntersection === false) return resultProblems(piece, options);
+	const cached = fullCheckCache.get(piece);
+	if (cached) return cached;
+	const problems = resultProblems(piece);
+	fullCheckCache.set(piece, problems);
+	return problems;
 }
+
+/**
+ * Pieces are immutable data: the full check of one piece object is kept (weakly) and reused, e.g. while
+ * a style line is dragged across unchanged panels.
+ */
+const fullCheckCache = new WeakMap<Piece, string[]>();
 
 export function rotateFn(center: Vec, angleRad: number): (p: Vec) => Vec {
 	const c = Math.cos(angleRad);
