@@ -284,6 +284,8 @@ function mergeChains(A: Chain, B: Chain, order: Int32Array, g: Ranges, found: Pa
 	for (let k = A.from; k < A.to; k++) {
 		const p = order[k];
 		while (j0 < B.to && g[4 * order[j0] + 1] < g[4 * p]) j0++;
+		// a piece outside B's range across a meets none of B's pieces
+		if (g[4 * p + 3] < B.crossLo || g[4 * p + 2] > B.crossHi) continue;
 		for (let r = j0; r < B.to; r++) {
 			const q = order[r];
 			if (g[4 * q] > g[4 * p + 1]) break;

@@ -202,6 +202,11 @@ function openForward(
 	let q = 0;
 	for (let ri = 0; ri <= n - 3; ri++) {
 		const s = segs[orig(ri)];
+		if (q === targets.length || targets[q].ri !== ri) {
+			// most segments carry no opening
+			cur.push(s);
+			continue;
+		}
 		while (q < targets.length && targets[q].ri === ri && targets[q].t === 0) {
 			chains.push(cur);
 			cur = [];
@@ -232,7 +237,7 @@ function openForward(
 	const out: Segment[] = [];
 	const openings: OpenedWedge[] = [];
 	for (let c = 0; c <= m; c++) {
-		out.push(...rotated[c]);
+		for (const s of rotated[c]) out.push(s);
 		if (c === m) break;
 		const tg = targets[c];
 		const S = chains[c + 1][0].p0;

@@ -45,6 +45,9 @@ export function cutPanels(panels: readonly Piece[], line: Path, fuse: 'above' | 
 	return parts;
 }
 
+/** The placement of panel 0, which stays put. */
+export const noMove = (p: Vec): Vec => p;
+
 /** Which part of a cut panel a point lies in, or nearer to. */
 export function nearSide(p: Vec, part: Part): 'fused' | 'other' {
 	const d = (q: Piece) => (outlineContainsPoint(q.outline, p) ? 0 : outlineNearestPoint(q.outline, p).distance);

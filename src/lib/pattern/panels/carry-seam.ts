@@ -9,7 +9,7 @@ import { REACH_MM, SEAM_SNAP_MM } from './panel-tolerances';
 import { pieceMapPoints, rotateFn } from './piece-tools';
 import { divergenceCandidates, seamWedge, type SeamWedge } from './seam-wedge';
 import { mergeMarkings, spliceOutlines } from './splice';
-import { crossing, nearSide, placementOf, residualPleat, stubHeight, type Part } from './carry-parts';
+import { crossing, nearSide, noMove, placementOf, residualPleat, stubHeight, type Part } from './carry-parts';
 import type { CarryPlacement, CarryResidual, CarrySeam } from './carry-types';
 
 /**
@@ -70,15 +70,17 @@ export function carryAcrossSeam(st: CarryState, k: number, ctx: SeamContext): Pa
 		if (typeof w === 'string') return panelRefuse('seam_edges_differ', `Seam "${pair.id}": ${w}.`);
 		wedge = w;
 	}
-	let B = pieceMapPoints(partB.fused, T);
+	// the next panel's part where it lies now, made only where a join needs it (a closing wedge turns it instead)
+	let laid: Piece | null = null;
+	const B = (): Piece => (laid ??= T === noMove ? partB.fused : pieceMapPoints(partB.fused, T));
 	if (!wedge) {
 		// edges coincide all along (no divergence point): a plain join where the line crosses
 		const c = crossing(pair.a.edge, line);
 		const far = nearSide(pathFirst(pair.a.edge), partA) === 'fused' ? pathFirst(pair.a.edge) : pathLast(pair.a.edge);
 		if (!c) return panelRefuse('style_line_misses_panel', `The style line does not cross seam "${pair.id}".`);
-		const o = spliceOutlines(fused.outline, B.outline, T(c), T(far), SEAM_SNAP_MM);
+		const o = spliceOutlines(fused.outline, B().outline, T(c), T(far), SEAM_SNAP_MM);
 		if (!o) return panelRefuse('no_divergence_point', `Seam "${pair.id}": the edges differ and no divergence point is marked on both panels.`);
-		fused = { ...fused, ...mergeMarkings(fused, B, o), outline: o };
+		fused = { ...fused, ...mergeMarkings(fused, B(), o), outline: o };
 		reach.push(c);
 		styleSeamEdges.push(pathMapPoints(partB.cut, T));
 		placements.push(placementOf(right.id, T));
@@ -125,7 +127,7 @@ export function carryAcrossSeam(st: CarryState, k: number, ctx: SeamContext): Pa
 	};
 	/** The chosen parts coincide along the seam: joined as they lie, the wedge stays in the other side's panel seam. */
 	const plain = (o: typeof fused.outline, h: number, at: Vec, note: string) => {
-		fused = { ...fused, ...mergeMarkings(fused, B, o), outline: o };
+		fused = { ...fused, ...mergeMarkings(fused, B(), o), outline: o };
 		ledgerEntries.push(
 			ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: `wedge of "${pair.id}" lies wholly on the other side of the style line`, angleRad: -theta }),
 			ledgerEntry({ apexId, kind: 'seam', refId: pair.id, label: 'stays in that panel seam', angleRad: theta })
@@ -162,13 +164,13 @@ export function carryAcrossSeam(st: CarryState, k: number, ctx: SeamContext): Pa
 		styleSeamEdges.push(pathMapPoints(partB.cut, T));
 	} else if (!mouthOnFused && ca && cb && wedge.sharedA) {
 		// D on the chosen side, wedge opening toward the line: the stub between D and the line stays open
-		o = spliceOutlines(fused.outline, B.outline, T(pathFirst(wedge.sharedA)), T(D), SEAM_SNAP_MM);
+		o = spliceOutlines(fused.outline, B().outline, T(pathFirst(wedge.sharedA)), T(D), SEAM_SNAP_MM);
 		if (!o) return panelRefuse('seam_not_on_piece', `Seam "${pair.id}": the panel edges could not be joined beside the divergence point.`);
 		const h = stubHeight(D, ca, cb);
 		if (h <= REACH_MM) {
 			// the line runs through D (within reach): nothing stays open on this side, the wedge stays whole on the other
 			plain(o, h, ca, `Seam "${pair.id}": the style line runs through its divergence point; the whole wedge stays in the panel seam on the other side.`);
-		} else fused = leave(h, dist(ca, cb), o, B);
+		} else fused = leave(h, dist(ca, cb), o, B());
 		styleSeamEdges.push(pathMapPoints(partB.cut, T));
 	} else if (mouthOnFused && cs && wedge.sharedA) {
 		// D on the chosen side, wedge opening away from the line: close it about D, the stretch D–line opens
@@ -185,7 +187,7 @@ export function carryAcrossSeam(st: CarryState, k: number, ctx: SeamContext): Pa
 	} else if (!mouthOnFused && cs) {
 		// the whole wedge is on the other side: the chosen parts coincide along the seam
 		const farShared = pathFirst(wedge.sharedA!);
-		o = spliceOutlines(fused.outline, B.outline, T(cs), T(farShared), SEAM_SNAP_MM);
+		o = spliceOutlines(fused.outline, B().outline, T(cs), T(farShared), SEAM_SNAP_MM);
 		if (!o) return panelRefuse('seam_not_on_piece', `Seam "${pair.id}": the panel edges could not be joined.`);
 		plain(o, dist(cs, D), cs, `Seam "${pair.id}": its wedge lies wholly on the other side of the style line; nothing to carry.`);
 		styleSeamEdges.push(pathMapPoints(partB.cut, T));

@@ -1,11 +1,11 @@
-import { outlineArea, outlineSelfIntersections, pathFromPolyline, pathLength, type Vec } from '../kernel';
+import { outlineArea, outlineSelfIntersections, pathFromPolyline, pathLength } from '../kernel';
 import type { Piece } from '../piece-schema';
 import { pathFirst, pathLast } from './chain-tools';
 import { nonFiniteAt } from './finite-check';
 import { panelRefuse, panelReport, type SeamPair } from './panel-types';
 import { SEAM_SNAP_MM } from './panel-tolerances';
 import { pieceProblems } from './piece-tools';
-import { cutPanels, placementOf } from './carry-parts';
+import { cutPanels, noMove, placementOf } from './carry-parts';
 import { carryAcrossSeam, type CarryState } from './carry-seam';
 import type { CarryParams, CarryResult } from './carry-types';
 
@@ -47,17 +47,16 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	const parts = cutPanels(panels, line, params.fuse);
 	if (!Array.isArray(parts)) return parts;
 	// 2. join the chosen side's parts left to right
-	const T0 = (p: Vec) => p;
 	const st: CarryState = {
 		fused: parts[0].fused,
-		T: T0,
+		T: noMove,
 		shapingMovedMm: 0,
 		ledgerEntries: [],
 		residuals: [],
 		carrySeams: [],
 		reach: [pathFirst(line)],
 		styleSeamEdges: [parts[0].cut],
-		placements: [placementOf(panels[0].id, T0)],
+		placements: [placementOf(panels[0].id, noMove)],
 		notes: []
 	};
 	const ctx = { panels, seams, parts, line, residualAs, styleSeamId };
