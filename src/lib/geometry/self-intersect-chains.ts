@@ -34,14 +34,17 @@ interface Pieces {
 	readonly y1: Float64Array;
 }
 
-interface Chain {
-	/** The chain's pieces are order[from … to − 1], in increasing a. */
-	readonly from: number;
-	readonly to: number;
-	readonly lo: number;
-	readonly hi: number;
-	readonly crossLo: number;
-	readonly crossHi: number;
+/**
+ * The chains, as parallel arrays: chain c's pieces are order[from[c] … to[c] − 1], in increasing a; its
+ * pieces' ranges (grown by the reach) span lo … hi along a and crossLo … crossHi across it.
+ */
+interface Chains {
+	readonly from: Int32Array;
+	readonly to: Int32Array;
+	readonly lo: Float64Array;
+	readonly hi: Float64Array;
+	readonly crossLo: Float64Array;
+	readonly crossHi: Float64Array;
 }
 
 /** Ranges of every piece along a and across it (c), grown by the reach: aLo, aHi, cLo, cHi at 4p … 4p + 3. */
@@ -234,10 +237,18 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	const budget = WORK_PER_PIECE * m + 1024;
 
 	const order = new Int32Array(m);
-	const chains: Chain[] = [];
-	for (let c = 0; c < starts.length; c++) {
+	const count = starts.length;
+	const ch: Chains = {
+		from: new Int32Array(count),
+		to: new Int32Array(count),
+		lo: new Float64Array(count),
+		hi: new Float64Array(count),
+		crossLo: new Float64Array(count),
+		crossHi: new Float64Array(count)
+	};
+	for (let c = 0; c < count; c++) {
 		const from = starts[c];
-		const to = c + 1 < starts.length ? starts[c + 1] : m;
+		const to = c + 1 < count ? starts[c + 1] : m;
 		const rising = A1[to - 1] >= A0[from];
 		let lo = Infinity, hi = -Infinity, crossLo = Infinity, crossHi = -Infinity;
 		for (let p = from; p < to; p++) {
@@ -247,7 +258,12 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 			crossLo = Math.min(crossLo, g[4 * p + 2]);
 			crossHi = Math.max(crossHi, g[4 * p + 3]);
 		}
-		chains.push({ from, to, lo, hi, crossLo, crossHi });
+		ch.from[c] = from;
+		ch.to[c] = to;
+		ch.lo[c] = lo;
+		ch.hi[c] = hi;
+		ch.crossLo[c] = crossLo;
+		ch.crossHi[c] = crossHi;
 		// within the chain: each piece against the ones that follow it while their ranges of a still meet
 		for (let k = from; k < to; k++) {
 			const p = order[k];
@@ -262,31 +278,69 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 		}
 	}
 
-	// pairs of chains whose boxes meet, each compared by a merge along a
-	chains.sort((p, q) => p.lo - q.lo);
-	for (let a = 0; a < chains.length; a++) {
-		const A = chains[a];
-		for (let b = a + 1; b < chains.length && chains[b].lo <= A.hi; b++) {
-			const B = chains[b];
+	// along each chain in order of a: the largest hi so far and the smallest lo from here on (pieces that
+	// meet at a vertex within the closure tolerance may step back a little, so the ranges themselves are
+	// not quite in order, these are)
+	const upHi = new Float64Array(m);
+	const downLo = new Float64Array(m);
+	for (let c = 0; c < count; c++) {
+		const from = ch.from[c], to = ch.to[c];
+		let run = -Infinity;
+		for (let k = from; k < to; k++) upHi[k] = run = Math.max(run, g[4 * order[k] + 1]);
+		run = Infinity;
+		for (let k = to - 1; k >= from; k--) downLo[k] = run = Math.min(run, g[4 * order[k]]);
+	}
+	// pairs of chains whose boxes meet (a sweep along a over the chains in order of lo), each compared by a
+	// merge along a
+	const byLo = new Int32Array(count);
+	for (let c = 0; c < count; c++) byLo[c] = c;
+	byLo.sort((x, y) => ch.lo[x] - ch.lo[y]);
+	for (let a = 0; a < count; a++) {
+		const A = byLo[a];
+		const hiA = ch.hi[A], crossLoA = ch.crossLo[A], crossHiA = ch.crossHi[A];
+		for (let b = a + 1; b < count; b++) {
+			const B = byLo[b];
+			if (ch.lo[B] > hiA) break;
 			if (++work > budget) return null;
-			if (A.crossHi < B.crossLo || B.crossHi < A.crossLo) continue;
-			work += A.to - A.from + B.to - B.from;
+			if (crossHiA < ch.crossLo[B] || ch.crossHi[B] < crossLoA) continue;
+			work += ch.to[A] - ch.from[A] + ch.to[B] - ch.from[B];
 			if (work > budget) return null;
-			mergeChains(A, B, order, g, found);
+			mergeChains(ch, A, B, order, g, upHi, downLo, found);
 		}
 	}
 	return found.pairs(m === segs.length);
 }
 
-/** Piece pairs of two chains whose ranges of a meet (both walked in order of a). */
-function mergeChains(A: Chain, B: Chain, order: Int32Array, g: Ranges, found: PairKeys): void {
-	let j0 = B.from;
-	for (let k = A.from; k < A.to; k++) {
+/** First index k in from … to − 1 with upHi[k] ≥ v (upHi is in order along a chain), or to. */
+function firstReaching(upHi: Float64Array, from: number, to: number, v: number): number {
+	let lo = from, hi = to;
+	while (lo < hi) {
+		const mid = (lo + hi) >> 1;
+		if (upHi[mid] >= v) hi = mid;
+		else lo = mid + 1;
+	}
+	return lo;
+}
+
+/**
+ * Piece pairs of chains A and B whose ranges meet, both walked in order of a from where their ranges
+ * along a begin to meet to where they stop meeting.
+ */
+function mergeChains(ch: Chains, A: number, B: number, order: Int32Array, g: Ranges, upHi: Float64Array, downLo: Float64Array, found: PairKeys): void {
+	const toA = ch.to[A], toB = ch.to[B];
+	const crossLoB = ch.crossLo[B], crossHiB = ch.crossHi[B], hiB = ch.hi[B];
+	// pieces of A before this reach no piece of B along a
+	const k0 = firstReaching(upHi, ch.from[A], toA, ch.lo[B]);
+	if (k0 === toA) return;
+	let j0 = firstReaching(upHi, ch.from[B], toB, g[4 * order[k0]]);
+	for (let k = k0; k < toA; k++) {
+		// this piece and all after it lie past B along a
+		if (downLo[k] > hiB) break;
 		const p = order[k];
-		while (j0 < B.to && g[4 * order[j0] + 1] < g[4 * p]) j0++;
+		while (j0 < toB && g[4 * order[j0] + 1] < g[4 * p]) j0++;
 		// a piece outside B's range across a meets none of B's pieces
-		if (g[4 * p + 3] < B.crossLo || g[4 * p + 2] > B.crossHi) continue;
-		for (let r = j0; r < B.to; r++) {
+		if (g[4 * p + 3] < crossLoB || g[4 * p + 2] > crossHiB) continue;
+		for (let r = j0; r < toB; r++) {
 			const q = order[r];
 			if (g[4 * q] > g[4 * p + 1]) break;
 			if (near(g, p, q)) found.add(p, q);
