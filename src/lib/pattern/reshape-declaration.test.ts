@@ -1,11 +1,14 @@
 import { describe, expect, it } from 'vitest';
+import { demoPath } from './fixtures/demo-path';
 import { frontBodiceBlock } from './fixtures/front-bodice-block';
 import { ledgerEntrySchema, shapingChecks } from './ledger';
 import { pieceMetrics } from './metrics';
 import type { OperationResult } from './operation-result';
 import type { Piece } from './piece-schema';
 import { reshapeChanges, reshapeDeclaredEntries } from './reshape-declaration';
+import { recipeStepApply } from './recipe/registry';
 import { reshape, type ReshapeParams } from './verify/reshape';
+import { seamNames } from './verify/seam-names';
 import { versionVerify, type RecipeStepData } from './verify/version-verify';
 
 const replay = (piece: Piece, step: RecipeStepData): OperationResult => reshape(piece, step.params);
@@ -137,5 +140,32 @@ describe('declaring the changes', () => {
 		const d = reshapeDeclaredEntries(changes, { [key]: { choice: 'other', note: ' lower hem for the toile ' } });
 		if (!d.ok) throw new Error('expected entries');
 		expect(d.entries[0]).toMatchObject({ kind: 'other', note: 'lower hem for the toile' });
+	});
+});
+
+describe('the demo band reshaped by hand', () => {
+	// the midriff band of the demo style (fixtures/demo-path.ts), as its v2 after grain and allowance
+	const band = demoPath().pieces.find((p) => p.key === 'midriff-band')!.later[0].geometry;
+
+	it('lowering a point of its lower edge by 20 mm: the lower edge and the area are proposed, and the server accepts them declared', () => {
+		expect(seamNames(band, pieceMetrics(band).seams)).toContain('lower edge');
+		// the lower edge runs (204.2, 439.9) → (129.6, 424.8) → (79.45, 416.6) → (0, 416.6) on the band
+		const from = band.outline.segments[1].p0;
+		const params = { moves: [{ from, to: { x: from.x, y: from.y + 20 } }] };
+		// the two straight stretches beside it go from 50.8 + 79.5 to 51.5 + 81.9 mm (D): the edge gets longer
+		const after = reshaped(band, params);
+		const changes = reshapeChanges(band, after);
+		// the moved point turns by more than 25° now: a corner, so the lower edge is two seams, shown as one change
+		const edge = changes.find((c) => c.subject === 'seam');
+		expect(edge?.label).toBe('Lower edge, now lower edge 1 and lower edge 2');
+		expect(edge?.before).toBeCloseTo(206.37, 2);
+		expect(edge?.addsCloth).toBe(true);
+		expect(changes.filter((c) => c.subject === 'seam')).toHaveLength(1);
+		expect(changes.find((c) => c.subject === 'area')!.difference).toBeGreaterThan(0);
+		const recipe = [{ op: 'reshape', params }];
+		expect(versionVerify(band, after, recipe, recipeStepApply).ok).toBe(false);
+		const declared = reshapeDeclaredEntries(changes);
+		if (!declared.ok) throw new Error('expected entries');
+		expect(versionVerify(band, after, recipe, recipeStepApply, declared.entries).ok).toBe(true);
 	});
 });

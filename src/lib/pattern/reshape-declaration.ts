@@ -77,11 +77,27 @@ export function reshapeChanges(before: Piece, after: Piece, tolerances: ShapingT
 
 	const rows = metricsCompare(mb, ma, seamNames(before, mb.seams), seamNames(after, ma.seams)).filter((r) => r.group === 'seam');
 	const seams: ReshapeChange[] = [];
+	// a moved point may make a corner (a seam becomes two) or smooth one away: the seams gone and the
+	// seams new are shown as one change of that stretch
+	const gone = rows.filter((r) => r.b === null);
+	const made = rows.filter((r) => r.a === null);
+	const split = gone.length > 0 && made.length > 0;
 	rows.forEach((r, n) => {
+		if (split && (r.a === null || r.b === null)) return;
 		const d = (r.b ?? 0) - (r.a ?? 0);
 		if (Math.abs(d) <= tolerances.lengthMm) return;
 		seams.push(change({ key: `seam:${n}`, subject: 'seam', label: r.label, before: r.a, after: r.b, difference: d, unit: 'mm', apexId: null, addsCloth: d > 0, post: { angleRad: 0, areaMm2: 0, lengthMm: d } }));
 	});
+	if (split) {
+		const name = (label: string) => label.replace(/ \((gone|new)\)$/, '');
+		const a = gone.reduce((t, r) => t + (r.a ?? 0), 0);
+		const b = made.reduce((t, r) => t + (r.b ?? 0), 0);
+		const words = (rs: typeof rows) => rs.map((r) => name(r.label).toLowerCase()).join(' and ');
+		const label = `${name(gone.map((r) => r.label).join(' and '))}, now ${words(made)}`;
+		if (Math.abs(b - a) > tolerances.lengthMm) {
+			seams.push(change({ key: 'seam:stretch', subject: 'seam', label: label.charAt(0).toUpperCase() + label.slice(1), before: a, after: b, difference: b - a, unit: 'mm', apexId: null, addsCloth: b > a, post: { angleRad: 0, areaMm2: 0, lengthMm: b - a } }));
+		}
+	}
 	// the server checks the total seam length: what the small unlisted changes add up to rides on the largest
 	const total = ma.seamLengthMm - mb.seamLengthMm;
 	const listed = seams.reduce((s, c) => s + c.post.lengthMm, 0);
