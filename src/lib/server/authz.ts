@@ -51,6 +51,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/styles/[styleId]/compare': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/edit': { GET: ALL_ROLES },
+	'/studios/[studioId]/styles/[styleId]/print': { GET: ALL_ROLES },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)
 	'/studios/[studioId]/measurements': { GET: ALL_ROLES },
 	'/studios/[studioId]/measurements/new': { GET: EDITORS, POST: EDITORS },
@@ -73,6 +74,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/styles/[styleId]/seam-pairs': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/seam-pairs/[seamPairId]': { PATCH: EDITORS, DELETE: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]/export.svg': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/styles/[styleId]/export.pdf': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
