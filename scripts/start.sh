@@ -43,7 +43,7 @@ MAIL_PID=$!
 # adapter-node: without ORIGIN it assumes https, which would refuse form posts on plain-http loopback.
 export HOST=127.0.0.1 PORT="$APP_PORT" ORIGIN="${ORIGIN:-http://127.0.0.1:$APP_PORT}"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT"
-export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-8M}"
+export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}"
 # The app's own messages (errors) stay in the terminal, after the summary below.
 node build &
 APP_PID=$!

@@ -29,7 +29,7 @@ export async function appProcessStart(databaseUrl: string): Promise<AppProcess> 
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
 	const child = spawn(process.execPath, ['build'], {
-		env: { ...process.env, DATABASE_URL: databaseUrl, HOST: '127.0.0.1', PORT: String(port), ORIGIN: baseUrl, BODY_SIZE_LIMIT: '8M' },
+		env: { ...process.env, DATABASE_URL: databaseUrl, HOST: '127.0.0.1', PORT: String(port), ORIGIN: baseUrl, BODY_SIZE_LIMIT: '12M' },
 		stdio: ['ignore', 'pipe', 'pipe']
 	});
 	let out = '';

@@ -24,7 +24,7 @@ export async function startApp(): Promise<RunningApp> {
 		SMTP_PORT: String(mailbox.port),
 		MAIL_FROM: 'Dartelier tests <tests@dartelier.localhost>',
 		// adapter-node's own cap (default 512K) set above the API's 1 MB limit, as in production.
-		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M'
+		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '12M'
 	};
 	const worker = new Worker(new URL('./app-worker.mjs', import.meta.url), { workerData: { handlerFile }, env });
 	const port = await new Promise<number>((resolve, reject) => {

@@ -157,7 +157,7 @@ export function pieceSvg(piece: Piece, meta: SvgExportMeta): string {
 	const y = b.minY - SVG_MARGIN_MM;
 	const w = b.maxX - b.minX + 2 * SVG_MARGIN_MM + 60;
 	const h = Math.max(b.maxY - b.minY + 2 * SVG_MARGIN_MM, 80);
-	const body = `<g id="piece-${esc(piece.id)}">${pieceLayers(piece, layout)}</g>\n${testSquare({ x: b.maxX + 10, y: b.minY })}`;
+	const body = `<g id="piece-${esc(piece.id)}" data-name="${esc(piece.name)}" data-cut="${piece.cut}">${pieceLayers(piece, layout)}</g>\n${testSquare({ x: b.maxX + 10, y: b.minY })}`;
 	return svgDocument(w, h, x, y, body);
 }
 
@@ -171,7 +171,7 @@ export function styleSvg(pieces: readonly { piece: Piece; meta: SvgExportMeta }[
 		const b = layout.extent;
 		const dx = cursor - b.minX;
 		const dy = -b.minY;
-		groups.push(`<g id="piece-${esc(piece.id)}" transform="translate(${n(dx)} ${n(dy)})">${pieceLayers(piece, layout)}</g>`);
+		groups.push(`<g id="piece-${esc(piece.id)}" data-name="${esc(piece.name)}" data-cut="${piece.cut}" transform="translate(${n(dx)} ${n(dy)})">${pieceLayers(piece, layout)}</g>`);
 		cursor += b.maxX - b.minX + SVG_GAP_MM;
 		height = Math.max(height, b.maxY - b.minY);
 	}

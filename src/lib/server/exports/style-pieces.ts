@@ -37,7 +37,8 @@ export async function styleExportPieces(
 	studioId: string,
 	styleId: string,
 	role: Role,
-	only?: readonly string[]
+	only?: readonly string[],
+	emptyOk = false
 ): Promise<{ style: StyleRow; pieces: ExportPiece[] }> {
 	const style = await styleOr404(db, studioId, styleId);
 	const sizeLabel = (style.measurementSetId ? await measurementSetName(db, style.measurementSetId) : undefined) ?? 'no measurement set';
@@ -58,7 +59,7 @@ export async function styleExportPieces(
 			meta: { styleName: style.name, styleCode: style.code || undefined, sizeLabel, versionNumber: v.number, versionState: v.state, fabric: row.fabric }
 		});
 	}
-	if (pieces.length === 0) throw new ApiError(404, 'not_found', 'This style has no pieces you can export yet.');
+	if (pieces.length === 0 && !emptyOk) throw new ApiError(404, 'not_found', 'This style has no pieces you can export yet.');
 	return { style, pieces };
 }
 

@@ -37,7 +37,7 @@ export async function pieceSvgExport(db: DbOrTx, studioId: string, pieceId: stri
 	const style = await styleOr404(db, studioId, piece.styleId);
 	const v = versionId ? await versionOr404(db, pieceId, versionId, role) : await versionShown(db, pieceId, piece.headVersionId, role);
 	if (!v) throw new ApiError(404, 'not_found', 'This piece has no version you can export yet.');
-	const svg = pieceSvg(pieceSchema.parse(v.geometry), await metaOf(db, style, v.number));
+	const svg = pieceSvg({ ...pieceSchema.parse(v.geometry), name: piece.name, cut: piece.cut }, await metaOf(db, style, v.number));
 	return { svg, fileName: `${slug(style.code || style.name)}-${slug(piece.name)}-v${v.number}.svg` };
 }
 
@@ -46,7 +46,7 @@ export async function styleSvgExport(db: DbOrTx, studioId: string, styleId: stri
 	const items = [];
 	for (const p of await piecesOfStyle(db, styleId)) {
 		const v = await versionShown(db, p.id, p.headVersionId, role);
-		if (v) items.push({ piece: pieceSchema.parse(v.geometry), meta: await metaOf(db, style, v.number) });
+		if (v) items.push({ piece: { ...pieceSchema.parse(v.geometry), name: p.name, cut: p.cut }, meta: await metaOf(db, style, v.number) });
 	}
 	if (items.length === 0) throw new ApiError(404, 'not_found', 'This style has no pieces you can export yet.');
 	return { svg: styleSvg(items), fileName: `${slug(style.code || style.name)}-all-pieces.svg` };
