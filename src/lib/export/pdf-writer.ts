@@ -19,6 +19,7 @@ import {
 	setLineWidth,
 	setStrokingColor,
 	stroke,
+	type PDFEmbeddedPage,
 	type PDFFont,
 	type PDFOperator,
 	type PDFPage
@@ -40,7 +41,6 @@ export interface PdfFonts {
 }
 
 const INK = rgb(0x1f / 255, 0x2a / 255, 0x37 / 255);
-const GREY = rgb(0.55, 0.55, 0.55);
 const k = PT_PER_MM;
 
 interface Fonts {
@@ -122,7 +122,7 @@ function text(page: PDFPage, fonts: Fonts, s: string, xMm: number, yMmFromTop: n
 }
 
 /** The first page of a tiled print: caution, test squares, page map and how to join the pages. */
-function coverPage(doc: PDFDocument, sheet: PrintSheet, fonts: Fonts) {
+function coverPage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, fonts: Fonts) {
 	const t = sheet.tiling;
 	const page = doc.addPage([t.pageWidthMm * k, t.pageHeightMm * k]);
 	const m = t.marginMm;
@@ -143,8 +143,8 @@ function coverPage(doc: PDFDocument, sheet: PrintSheet, fonts: Fonts) {
 	const gridH = t.rows * stepY + t.overlapMm;
 	const s = Math.min(boxW / gridW, boxH / gridH);
 	const at: Placement = { ox: m * k, oy: page.getHeight() - (m + 108) * k, s: s * k, widthScale: 0.5 / s, textScale: 1 };
-	const outlines = sheet.items.filter((it) => it.kind === 'path' && it.stroke === 'cut');
-	drawItems(page, outlines, fonts, { ...at, widthScale: 0.25 / s }, GREY);
+	// the sheet itself, reduced: the same drawing every page shows
+	page.drawPage(form, { x: at.ox, y: at.oy - form.height * s, xScale: s, yScale: s, opacity: 0.6 });
 	for (const tile of t.tiles) {
 		const rect = { kind: 'path' as const, segments: [], closed: true, stroke: tile.blank ? ('overlap' as const) : ('mark' as const) };
 		const x0 = tile.col * stepX;
@@ -164,7 +164,7 @@ function coverPage(doc: PDFDocument, sheet: PrintSheet, fonts: Fonts) {
 }
 
 /** One page of the paper showing a tile of the sheet, with its code, joins, trim edges and overlap lines. */
-function tilePage(doc: PDFDocument, sheet: PrintSheet, form: Awaited<ReturnType<PDFDocument['embedPage']>>, index: number, fonts: Fonts) {
+function tilePage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, index: number, fonts: Fonts) {
 	const t = sheet.tiling;
 	const tile = t.tiles[index];
 	const page = doc.addPage([t.pageWidthMm * k, t.pageHeightMm * k]);
@@ -214,9 +214,9 @@ export async function printPdf(sheet: PrintSheet, fontBytes: PdfFonts): Promise<
 	drawItems(big, sheet.items, fonts, { ox: 0, oy: big.getHeight(), s: k });
 	const form = await doc.embedPage(big);
 	doc.removePage(0);
-	if (!sheet.infoOnSheet) coverPage(doc, sheet, fonts);
+	if (!sheet.infoOnSheet) coverPage(doc, sheet, form, fonts);
 	sheet.tiling.tiles.forEach((tile, i) => {
 		if (!tile.blank) tilePage(doc, sheet, form, i, fonts);
 	});
-	return doc.save();
+	return doc.save({ useObjectStreams: false });
 }
