@@ -5,6 +5,7 @@ import { outlinePleatsAcross, pleatMarks } from '$lib/pattern/export/pleat-marks
 import { pieceMirror } from '$lib/pattern/panels/piece-tools';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { polyline, type DrawItem } from './drawing';
+import { dartPressArrows, notchSlits } from './marks';
 
 /** What a piece's label says besides its geometry. */
 export interface PieceLabelMeta {
@@ -72,7 +73,8 @@ function arrowHead(tip: Vec, from: Vec, sizeMm: number): DrawItem {
 /**
  * Every line, mark and label of one piece in its own coordinates (mm, y down): the cut line solid,
  * the stitching line dashed (only when the allowance is shown: otherwise the stitching line is cut),
- * darts, pleats with their fold and placement lines and fold arrow, notches, grainline with
+ * darts with their pressing direction, pleats with their fold and placement lines and fold arrow,
+ * notches as slits square to the seam, grainline with
  * arrowheads, fold line, internal lines, drill holes and the label.
  */
 export function pieceDrawing(piece: Piece, lines: readonly string[]): DrawItem[] {
@@ -95,9 +97,7 @@ export function pieceDrawing(piece: Piece, lines: readonly string[]): DrawItem[]
 		items.push(polyline([...m.fold], 'mark'), polyline([...m.placement], 'placement'));
 		items.push(polyline([m.arrow.from, m.arrow.to], 'fine'), arrowHead(m.arrow.to, m.arrow.from, 2.5));
 	}
-	for (const k of piece.notches) {
-		for (let i = 0; i < k.count; i++) items.push({ kind: 'dot', at: { x: k.at.x + (i - (k.count - 1) / 2) * 3, y: k.at.y }, radiusMm: 1 });
-	}
+	items.push(...dartPressArrows(piece), ...notchSlits(piece, stitching));
 	for (const h of piece.drillHoles) items.push({ kind: 'dot', at: h.at, radiusMm: Math.max(0.5, h.diameterMm / 2) });
 	for (const l of piece.internalLines) items.push({ kind: 'path', segments: l.path.segments, closed: false, stroke: 'mark' });
 	if (piece.grainline) {
