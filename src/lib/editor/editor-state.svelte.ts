@@ -7,6 +7,7 @@ import { versionVerify } from '$lib/pattern/verify/version-verify';
 import { styleLoad, type SeamPairInfo } from './api';
 import type { EditorDoc } from './doc';
 import { pieceDrawing } from './drawing';
+import { PAPER_GRID_MM } from './paint-grid';
 import { hitTest, snapPoint, type Hit, type Snap, type SnapOptions } from './hit';
 import type { MoveContext } from './moves/context';
 import { moveDef, MOVES, type MoveState } from './moves/registry';
@@ -71,6 +72,9 @@ export class EditorState {
 			},
 			get seamPairs() {
 				return self.seamPairs;
+			},
+			get paperGridMm() {
+				return PAPER_GRID_MM[self.camera.paperGrid];
 			},
 			get visible() {
 				return self.docs.visible;

@@ -23,6 +23,8 @@ export interface SelectionView {
 
 export interface MoveContext {
 	readonly unit: LengthUnit;
+	/** The pattern paper's grid (2 cm or 1 in), for snapping. */
+	readonly paperGridMm: number;
 	readonly seamPairs: readonly SeamPairInfo[];
 	/** Pieces on the table (not retired), in drawing order. */
 	readonly visible: readonly PieceEdit[];

@@ -24,9 +24,9 @@ describe('offered moves', () => {
 		s.offerStart(o.moves[0]);
 		expect(s.move.id === 'pivot' && s.move.dartId).toBe('waist-dart');
 	});
-	it('a piece offers grain, fold, allowance, notch, spread and the moves of its darts', () => {
+	it('a piece offers grain, fold, allowance, reshape, notch, spread and the moves of its darts', () => {
 		const s = editorWith([{ geometry: frontBodiceBlock(), key: 'front' }]);
-		expect(ids(s)).toEqual(expect.arrayContaining(['grain', 'fold', 'allowance', 'notch', 'spread', 'pivot', 'pleat']));
+		expect(ids(s)).toEqual(expect.arrayContaining(['grain', 'fold', 'allowance', 'reshape', 'notch', 'spread', 'pivot', 'pleat']));
 	});
 	it('an apex on the stitching line offers to be marked as a divergence point, and the mark applies', () => {
 		const w = twoPanelWedge();

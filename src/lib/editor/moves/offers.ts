@@ -8,7 +8,7 @@ import type { MoveId } from './types';
 /**
  * The moves offered for what is selected, in the trade's words: a dart offers pivot, share, pleats,
  * pull back and cap; an apex, marking it as a divergence point; a seam, true, notch, pair with…; two
- * panels, join; a row of panels, carry; a piece, grain, fold, allowance, notch, spread, separate (and
+ * panels, join; a row of panels, carry; a piece, grain, fold, allowance, reshape, notch, spread, separate (and
  * the moves of its first dart, of its seam pairs and of its row).
  */
 export type OfferId = MoveId | 'divergence_point' | 'pair_with';
@@ -46,6 +46,7 @@ export const OFFER_KEYS: Record<OfferId, string> = {
 	join: 'j',
 	carry: 'k',
 	true_seam: 't',
+	reshape: 'r',
 	divergence_point: 'e',
 	pair_with: 'w'
 };
@@ -94,7 +95,7 @@ export function offersFor(ctx: MoveContext): Offered | null {
 			};
 		}
 	}
-	const moves: Offer[] = [offer('grain', 'Grain'), offer('fold', 'Fold'), offer('allowance', 'Allowance'), offer('notch', 'Notch'), offer('spread', 'Spread')];
+	const moves: Offer[] = [offer('grain', 'Grain'), offer('fold', 'Fold'), offer('allowance', 'Allowance'), offer('reshape', 'Reshape'), offer('notch', 'Notch'), offer('spread', 'Spread')];
 	if (g.internalLines.length) moves.push(offer('separate', 'Separate'));
 	if (g.darts.length) moves.push(...DART_MOVES());
 	if (ctx.seamPairs.some((sp) => (sp.aPieceId === key || sp.bPieceId === key) && storedPairUsable(ctx, sp, true))) moves.push(offer('join', 'Join'), offer('true_seam', 'True seam'));

@@ -9,6 +9,7 @@ import { notchMove, type NotchState } from './notch';
 import { pivotMove, type PivotState } from './pivot';
 import { pleatMove, type PleatState } from './pleat';
 import { pullBackMove, type PullBackState } from './pull-back';
+import { reshapeMove, type ReshapeState } from './reshape';
 import { selectMove, type SelectState } from './select';
 import { separateMove, type SeparateState } from './separate';
 import { shareMove, type ShareState } from './share';
@@ -35,7 +36,8 @@ export type MoveState =
 	| MeasureState
 	| JoinState
 	| CarryState
-	| TrueSeamState;
+	| TrueSeamState
+	| ReshapeState;
 
 export type MoveStateOf<K extends MoveId> = Extract<MoveState, { id: K }>;
 
@@ -57,7 +59,8 @@ export const MOVES: { readonly [K in MoveId]: MoveDef<MoveStateOf<K>> } = {
 	measure: measureMove,
 	join: joinMove,
 	carry: carryMove,
-	true_seam: trueSeamMove
+	true_seam: trueSeamMove,
+	reshape: reshapeMove
 };
 
 /** The definition of the move a state belongs to. */
@@ -65,4 +68,4 @@ export function moveDef<S extends MoveState>(st: S): MoveDef<S> {
 	return MOVES[st.id] as unknown as MoveDef<S>;
 }
 
-export const MOVE_ORDER: readonly MoveId[] = ['select', 'pivot', 'share', 'spread', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'join', 'carry', 'true_seam', 'notch', 'grain', 'fold', 'allowance', 'measure'];
+export const MOVE_ORDER: readonly MoveId[] = ['select', 'pivot', 'share', 'spread', 'pleat', 'pull_back', 'cap', 'style_line', 'separate', 'join', 'carry', 'true_seam', 'notch', 'grain', 'fold', 'allowance', 'reshape', 'measure'];

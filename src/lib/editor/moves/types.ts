@@ -21,7 +21,8 @@ export type MoveId =
 	| 'measure'
 	| 'join'
 	| 'carry'
-	| 'true_seam';
+	| 'true_seam'
+	| 'reshape';
 
 export interface PointerInfo {
 	readonly world: Vec;
