@@ -24,7 +24,7 @@ describe('editor: the moves of the selection, by keyboard', () => {
 		await editorOpen(page, f.editorUrl);
 		const key = await firstKey(page);
 		const waist = block.darts.find((d) => d.id === 'waist-dart')!;
-		await clickOnPiece(page, key, vecLerp(FRONT_BLOCK_BUST_POINT, vecLerp(waist.leg1End, waist.leg2End, 0.5), 0.6));
+		await clickOnPiece(page, key, vecLerp(FRONT_BLOCK_BUST_POINT, waist.leg1End, 0.6));
 		const beside = page.locator('[data-testid="selection-moves"]');
 		await beside.waitFor();
 		expect(await beside.locator('button').allTextContents()).toEqual(['Pivot P', 'Share H', 'Pleats L', 'Pull back B', 'Cap C']);
