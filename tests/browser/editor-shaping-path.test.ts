@@ -8,6 +8,7 @@ import { pathBoundingBox, vecLerp } from '../../src/lib/geometry';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { dbCreate } from '../../src/lib/server/db/index';
 import { demoStyleSeed } from '../../src/lib/server/seed/demo-style';
+import { demoPath } from '../../src/lib/pattern/fixtures/demo-path';
 import { browserLaunch, pageScreenshot } from './chromium';
 import { clickOnPiece, dragOnPiece, editorOpen, saveFromPanel, signUp } from './editor-helpers';
 
@@ -54,12 +55,36 @@ describe('the shaping path on the demo style, as a new user', () => {
 		await saveFromPanel(page, 'Bust dart turned into two pleats at the shoulder');
 		expect(await page.locator('[data-testid="save-report"]').last().textContent()).toContain('version 2 saved');
 
-		// 2. a panel clicked offers to carry its row; the line is drawn below every divergence point
+		// 2. the panels picked together offer to carry; the line is drawn below every divergence point
 		const panelNames = ['Under-structure: Centre front panel', 'Under-structure: Middle front panel', 'Under-structure: Side front panel'];
 		const keys = await Promise.all(panelNames.map((n) => named(page, n)));
 		const panels = await Promise.all(keys.map((k) => geometry(page, k!)));
-		const pb = pathBoundingBox(panels[1].outline);
-		await clickOnPiece(page, keys[1]!, { x: (pb.minX + pb.maxX) / 2, y: (pb.minY + pb.maxY) / 2 });
+		// the panel seams are not paired in the demo: each seam is clicked, "True" is chosen, the two ends of
+		// each edge are clicked (as the move's hint says) and the pair is stored under a name
+		const selectTool = page.getByRole('toolbar', { name: 'Editor tools' }).getByRole('button', { name: /Select/ });
+		for (const [i, seam] of demoPath().draft.seams.entries()) {
+			await selectTool.click();
+			await clickOnPiece(page, keys[i]!, vecLerp(seam.left.lower[1], seam.left.lower[0], 0.5));
+			await offered.getByRole('button', { name: /^True/ }).click();
+			await clickOnPiece(page, keys[i]!, seam.left.lower[0]);
+			await clickOnPiece(page, keys[i]!, seam.left.upper[1]);
+			await clickOnPiece(page, keys[i + 1]!, seam.right.lower[0]);
+			await clickOnPiece(page, keys[i + 1]!, seam.right.upper[1]);
+			await page.fill('#pair-label', `panel seam ${i + 1}`);
+			await page.getByRole('button', { name: 'Pair these seams' }).click();
+			await expect.poll(() => page.locator('[data-testid="piece-seam-pairs"]').textContent()).toContain(`panel seam ${i + 1}`);
+		}
+		// back to selecting (the toolbar's first button), the first panel clicked, the other two picked with it (Shift+click), as the status line says
+		await selectTool.click();
+		// the middle of each panel's grainline lies inside the panel
+		const centre = (i: number) => vecLerp(panels[i].grainline!.from, panels[i].grainline!.to, 0.5);
+		await clickOnPiece(page, keys[0]!, centre(0));
+		await page.keyboard.down('Shift');
+		await clickOnPiece(page, keys[1]!, centre(1));
+		await clickOnPiece(page, keys[2]!, centre(2));
+		await page.keyboard.up('Shift');
+		await pageScreenshot(page, 'editor-shaping-path-panels');
+		await expect.poll(() => offered.locator('[data-testid="offered-on"]').textContent()).toContain('3 panels');
 		await offered.getByRole('button', { name: /Carry/ }).click();
 		expect(await offered.locator('[data-tool="carry"]').getAttribute('aria-pressed')).toBe('true');
 		const boxes = panels.map((p) => pathBoundingBox(p.outline));
@@ -67,6 +92,7 @@ describe('the shaping path on the demo style, as a new user', () => {
 		const y = Math.max(...Ds) + 30;
 		await page.getByRole('button', { name: 'Fit' }).click();
 		await dragOnPiece(page, keys[0]!, { x: Math.min(...boxes.map((b) => b.minX)) - 12, y }, { x: Math.max(...boxes.map((b) => b.maxX)) + 12, y }, 10);
+		await pageScreenshot(page, 'editor-shaping-path-carry');
 		await expect.poll(() => readouts(page)).toContain('none: the line reaches every divergence point');
 		await page.getByRole('button', { name: 'Apply' }).click();
 		await saveFromPanel(page, 'Panel shaping carried into the underbust seam', ['Underbust band', 'Upper centre front', 'Upper middle front', 'Upper side front']);
@@ -78,7 +104,8 @@ describe('the shaping path on the demo style, as a new user', () => {
 		const bottom = bandGeometry.outline.segments.map((s) => s.p0).reduce((a, b) => (b.y > a.y ? b : a));
 		const lower = bandGeometry.outline.segments.map((s) => s.p0).filter((p) => Math.abs(p.y - bottom.y) < 30 && Math.abs(p.x - bottom.x) > 5);
 		const point = lower.sort((a, b) => b.y - a.y)[0] ?? bottom;
-		await clickOnPiece(page, band, { x: (pathBoundingBox(bandGeometry.outline).minX + pathBoundingBox(bandGeometry.outline).maxX) / 2, y: (pathBoundingBox(bandGeometry.outline).minY + pathBoundingBox(bandGeometry.outline).maxY) / 2 });
+		// the band chosen in the list of pieces: the piece's own moves are offered
+		await page.locator('section[aria-labelledby="pieces-title"] button', { hasText: 'Underbust band' }).click();
 		await offered.getByRole('button', { name: /Reshape/ }).click();
 		await dragOnPiece(page, band, point, { x: point.x, y: point.y + 6 }, 8);
 		await expect.poll(() => page.locator('[data-testid="reshape-moved"]').textContent()).toContain('1 point moved');

@@ -68,3 +68,14 @@ describe('offered moves', () => {
 		expect(offersFor(s.ctx)?.moves).toEqual([]);
 	});
 });
+
+describe('a panel seam offered for pairing', () => {
+	it('runs on through the divergence point, where the panels part, to the waist', () => {
+		const w = twoPanelWedge(12, 150);
+		const s = editorWith([{ geometry: w.left, key: 'left' }]);
+		clickOn(s, 'left', { x: 100, y: 60 });
+		const pair = offersFor(s.ctx)!.moves.find((m) => m.id === 'pair_with')!;
+		const ends = [pair.seam!.from, pair.seam!.to].map((v) => Math.round(v.y));
+		expect(ends.sort((a, b) => a - b)).toEqual([0, 400]);
+	});
+});

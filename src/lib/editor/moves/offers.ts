@@ -1,4 +1,6 @@
+import { vecDistance, type Vec } from '$lib/geometry';
 import { pieceSeams } from '$lib/pattern/piece-seams';
+import type { Piece } from '$lib/pattern/piece-schema';
 import { divergenceMarkable } from '../divergence-marking';
 import type { MoveContext } from './context';
 import { carryRow } from './carry';
@@ -54,6 +56,23 @@ export const OFFER_KEYS: Record<OfferId, string> = {
 const offer = (id: OfferId, label: string, extra: Partial<Offer> = {}): Offer => ({ id, label, key: OFFER_KEYS[id], ...extra });
 const DART_MOVES = (): Offer[] => [offer('pivot', 'Pivot'), offer('share', 'Share'), offer('pleat', 'Pleats'), offer('pull_back', 'Pull back'), offer('cap', 'Cap')];
 
+/**
+ * The seam an outline segment is on, from corner to corner — but a panel seam runs on through its
+ * divergence point (where the panels part, the seam goes on down the wedge): it is sewn as one.
+ */
+export function seamThroughDivergence(g: Piece, segmentIndex: number): { name: string; start: Vec; end: Vec } | null {
+	const seams = pieceSeams(g);
+	const i = seams.findIndex((x) => x.segmentIndices.includes(segmentIndex));
+	if (i < 0) return null;
+	const atD = (v: Vec) => g.apexes.some((a) => a.kind === 'divergence' && vecDistance(a.point, v) < 1e-6);
+	const n = seams.length;
+	let start = seams[i].start;
+	let end = seams[i].end;
+	for (let k = 1; k < n && atD(end); k++) end = seams[(i + k) % n].end;
+	for (let k = 1; k < n && atD(start); k++) start = seams[(i - k + n) % n].start;
+	return { name: seams[i].name, start, end };
+}
+
 export function offersFor(ctx: MoveContext): Offered | null {
 	const sel = ctx.selection;
 	const name = (k: string) => ctx.piece(k)?.name ?? 'a piece';
@@ -87,7 +106,7 @@ export function offersFor(ctx: MoveContext): Offered | null {
 		}
 	}
 	if (sel.segmentIndex >= 0) {
-		const seam = pieceSeams(g).find((x) => x.segmentIndices.includes(sel.segmentIndex));
+		const seam = seamThroughDivergence(g, sel.segmentIndex);
 		if (seam) {
 			return {
 				on: `${seam.name} of ${p.name}`,

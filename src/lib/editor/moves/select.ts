@@ -22,7 +22,7 @@ export const selectMove: MoveDef<SelectState> = {
 	edits: false,
 	fresh: () => ({ id: 'select', drag: null }),
 	started: () => false,
-	hint: () => 'Click a piece, an edge or a point to select it; drag a piece to move it on the table; drag the paper to pan.',
+	hint: () => 'Click a piece, a dart, a seam or a point to see what can be done with it; Shift+click panels to pick them together; drag a piece to move it on the table; drag the paper to pan.',
 	down(ctx, st, p) {
 		if (p.shift && p.hit) {
 			ctx.togglePanel(p.hit.pieceKey);
