@@ -2,12 +2,12 @@
 // rules as axe-core implements them): no serious or critical violation anywhere, error pages included.
 // The list of pages is held against the authorization table, so a new page cannot be left out.
 import AxeBuilder from '@axe-core/playwright';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { ROLES, roleLabel, type Role } from '../../src/lib/roles';
 import { AUTHZ } from '../../src/lib/server/authz';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { demoSignIn, demoStudio, type DemoStudio } from './demo-studio';
+import { pageScreenshot } from './chromium';
+import { demoBrowserUse, demoSignIn, type DemoStudio } from './demo-studio';
 
 /** Every page route (route id → the address to open), with what each role may see. */
 function pages(d: DemoStudio): Record<string, string> {
@@ -67,27 +67,18 @@ async function open(page: Page, url: string): Promise<number> {
 }
 
 describe('accessibility of every page, in every role', () => {
-	let browser: Browser;
-	let demo: DemoStudio;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-		demo = await demoStudio(inject('databaseUrl'));
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, demo, baseUrl } = demoBrowserUse();
 
 	it('lists every page route of the authorization table', () => {
 		const pageRoutes = Object.keys(AUTHZ).filter((id) => !id.startsWith('/api/') && AUTHZ[id].GET);
-		expect(Object.keys(pages(demo)).sort()).toEqual(pageRoutes.sort());
+		expect(Object.keys(pages(demo())).sort()).toEqual(pageRoutes.sort());
 	});
 
 	it('signed out: every public page and the page-not-found page have no serious or critical axe violation', { timeout: 180_000 }, async () => {
-		const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+		const context = await browser().newContext({ viewport: { width: 1440, height: 900 } });
 		const page = await context.newPage();
 		const findings: Finding[] = [];
-		const all = pages(demo);
+		const all = pages(demo());
 		for (const id of ['/', ...PUBLIC_ONLY]) {
 			await open(page, baseUrl() + all[id]);
 			findings.push(...(await axeSerious(page, all[id])));
@@ -100,12 +91,12 @@ describe('accessibility of every page, in every role', () => {
 
 	for (const role of ROLES) {
 		it(`as ${roleLabel(role)}: every page, and the error pages of what the role may not open, have no serious or critical axe violation`, { timeout: 300_000 }, async () => {
-			const { context, page } = await demoSignIn(browser, baseUrl(), demo, role);
+			const { context, page } = await demoSignIn(browser(), baseUrl(), demo(), role);
 			const problems: string[] = [];
 			page.on('pageerror', (e) => problems.push(e.message));
 			const findings: Finding[] = [];
 			const seen: string[] = [];
-			for (const [id, url] of Object.entries(pages(demo))) {
+			for (const [id, url] of Object.entries(pages(demo()))) {
 				if (PUBLIC_ONLY.includes(id) || id === '/') continue;
 				const status = await open(page, baseUrl() + url);
 				const rule = AUTHZ[id].GET!;
@@ -124,8 +115,8 @@ describe('accessibility of every page, in every role', () => {
 
 	it('the header names the role in words in every role view', { timeout: 120_000 }, async () => {
 		for (const role of ROLES) {
-			const { context, page } = await demoSignIn(browser, baseUrl(), demo, role);
-			await page.goto(`${baseUrl()}/studios/${demo.studioId}`);
+			const { context, page } = await demoSignIn(browser(), baseUrl(), demo(), role);
+			await page.goto(`${baseUrl()}/studios/${demo().studioId}`);
 			const badge = await page.getByTestId('role-badge').textContent();
 			expect(badge?.replace(/^Your role:\s*/, '').trim()).toBe(roleLabel(role as Role));
 			expect(badge).not.toMatch(/patterncutter|sampleroom/);
@@ -134,8 +125,8 @@ describe('accessibility of every page, in every role', () => {
 	});
 
 	it('a skip link is the first stop of the keyboard and takes focus to the main content', async () => {
-		const { context, page } = await demoSignIn(browser, baseUrl(), demo, 'patterncutter');
-		await page.goto(`${baseUrl()}/studios/${demo.studioId}/measurements`);
+		const { context, page } = await demoSignIn(browser(), baseUrl(), demo(), 'patterncutter');
+		await page.goto(`${baseUrl()}/studios/${demo().studioId}/measurements`);
 		await page.keyboard.press('Tab');
 		const link = page.getByRole('link', { name: 'Skip to main content' });
 		expect(await link.evaluate((el) => el === document.activeElement)).toBe(true);

@@ -1,6 +1,8 @@
 // The demo studio of our own scenario (fixtures/demo-studio.json), seeded into the test database for
 // browser tests that look at the app in each role's view, and a sign-in as one of its people.
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, inject } from 'vitest';
+import { browserLaunch } from './chromium';
 import demo from '../../fixtures/demo-studio.json';
 import { dbCreate } from '../../src/lib/server/db/index';
 import type { Role } from '../../src/lib/roles';
@@ -75,4 +77,21 @@ export async function demoSignIn(
 	});
 	if (r.status() !== 303) throw new Error(`sign-in as ${user.email} failed: ${r.status()}`);
 	return { context, page };
+}
+
+/**
+ * For a describe block that looks at the demo studio: launches the browser and seeds the studio before
+ * its tests, closes the browser after them. Read `browser()` and `demo()` inside the tests.
+ */
+export function demoBrowserUse(): { browser: () => Browser; demo: () => DemoStudio; baseUrl: () => string } {
+	let browser: Browser | undefined;
+	let studio: DemoStudio | undefined;
+	beforeAll(async () => {
+		browser = await browserLaunch();
+		studio = await demoStudio(inject('databaseUrl'));
+	});
+	afterAll(async () => {
+		await browser?.close();
+	});
+	return { browser: () => browser!, demo: () => studio!, baseUrl: () => inject('baseUrl') };
 }
