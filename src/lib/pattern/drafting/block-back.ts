@@ -1,3 +1,4 @@
+import { piecePressByPractice } from '../press-practice';
 import { vecAdd, vecDistance, vecScale, type Segment, type Vec } from '../../geometry';
 import type { Apex, CutInstruction, Dart, Piece } from '../piece-schema';
 import { pieceSchema } from '../piece-schema';
@@ -78,7 +79,7 @@ export function backPiece(f: BlockFrame, o: BackPieceOptions): Piece {
 	];
 	const grainX = B.waistDartLeg2.x / 2;
 	const labelAt = vecAdd(vecScale(vecAdd(B.waistDartLeg1, B.sideWaist), 0.5), { x: 0, y: -(f.waistY - f.bustY) / 2 });
-	return pieceSchema.parse({
+	return piecePressByPractice(pieceSchema.parse({
 		schemaVersion: 1,
 		id: o.id,
 		name: o.name,
@@ -97,5 +98,5 @@ export function backPiece(f: BlockFrame, o: BackPieceOptions): Piece {
 			{ id: 'centre', text: 'CB', at: { x: 8, y: f.waistY / 2 }, angleRad: -Math.PI / 2 }
 		],
 		cut: o.cut
-	});
+	}));
 }

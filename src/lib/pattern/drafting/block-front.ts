@@ -1,3 +1,4 @@
+import { piecePressByPractice } from '../press-practice';
 import { pointRotateAbout, segmentMapPoints, vecLerp, vecNormalize, vecSub, type Segment, type Vec } from '../../geometry';
 import type { Apex, CutInstruction, Dart, Notch, Piece } from '../piece-schema';
 import { pieceSchema } from '../piece-schema';
@@ -145,5 +146,5 @@ export function frontPiece(f: BlockFrame, o: FrontPieceOptions): Piece {
 	void vecNormalize;
 	void vecSub;
 	void down;
-	return pieceSchema.parse(piece);
+	return piecePressByPractice(pieceSchema.parse(piece));
 }

@@ -100,7 +100,15 @@ function triangleArea(a: Vec, b: Vec, c: Vec): number {
 	return Math.abs(polygonSignedArea([a, b, c]));
 }
 
-function panelPiece(id: string, name: string, segments: Segment[], apexes: { id: string; point: Vec; label: string }[], grain: { x: number; yBottom: number; lengthMm: number }, notches: { id: string; at: Vec }[]): Piece {
+function panelPiece(
+	id: string,
+	name: string,
+	segments: Segment[],
+	apexes: { id: string; point: Vec; label: string }[],
+	grain: { x: number; yBottom: number; lengthMm: number },
+	notches: { id: string; at: Vec }[],
+	centreLabelAt?: Vec
+): Piece {
 	return pieceSchema.parse({
 		schemaVersion: 1,
 		id,
@@ -109,7 +117,11 @@ function panelPiece(id: string, name: string, segments: Segment[], apexes: { id:
 		apexes: apexes.map((a) => ({ ...a, kind: 'divergence' })),
 		notches: notches.map((n) => ({ ...n, count: 1 })),
 		grainline: { from: { x: grain.x, y: grain.yBottom - grain.lengthMm }, to: { x: grain.x, y: grain.yBottom }, arrowheads: 'both' },
-		labels: [{ id: 'name', text: `${name} — cut 2 (a pair)`, at: { x: grain.x + 8, y: grain.yBottom - grain.lengthMm / 2 }, angleRad: -Math.PI / 2 }],
+		labels: [
+			{ id: 'name', text: `${name} — cut 2 (a pair)`, at: { x: grain.x + 8, y: grain.yBottom - grain.lengthMm / 2 }, angleRad: -Math.PI / 2 },
+			// the centre front marked as on the block, so moves keep it still and press darts toward it
+			...(centreLabelAt ? [{ id: 'centre', text: 'CF', at: centreLabelAt, angleRad: -Math.PI / 2 }] : [])
+		],
 		cut: 'pair'
 	});
 }
@@ -172,7 +184,8 @@ export function underStructureDraft(measurements: MeasurementsMm, ease: Ease = E
 		[neck, line(F.sideNeckPoint, d1), line(d1, bp), line(bp, w1), line(w1, F.centreWaist), line(F.centreWaist, F.neckPoint)],
 		[{ id: idA, point: bp, label: 'D (seam A)' }],
 		{ x: w1.x / 2, yBottom: f.waistY - 20, lengthMm: 0.6 * (f.waistY - f.frontNeckY) },
-		[{ id: 'seam-a-lower', at: mid(w1, bp) }]
+		[{ id: 'seam-a-lower', at: mid(w1, bp) }],
+		{ x: 8, y: (f.frontNeckY + f.waistY) / 2 }
 	);
 	const panels: Piece[] = [cfPanel];
 	const seams: UnderStructureSeam[] = [];

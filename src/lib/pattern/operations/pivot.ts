@@ -6,6 +6,7 @@ import { vecSchema, type Dart, type Piece } from '../piece-schema';
 import { carryMarkings, rotationMotion } from './carry-markings';
 import { openWedgesKeepingStill } from './still-side';
 import { reapplyPullBack } from './pull-back';
+import { dartPressByPractice, pressPracticeNote } from '../press-practice';
 
 export const pivotParamsSchema = z.object({
 	dartId: z.string().min(1),
@@ -41,12 +42,14 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 		movingLeg: o.movedLeg,
 		pullBack: reapplyPullBack(apex.point, dart, o.leg1End, o.leg2End)
 	};
-	const next: Piece = {
+	const placed: Piece = {
 		...piece,
 		...carried,
 		outline: r.value.outline,
 		darts: carried.darts.map((d) => (d.id === dart.id ? moved : d))
 	};
+	const pressToward = dartPressByPractice(placed, moved);
+	const next: Piece = pressToward ? { ...placed, darts: placed.darts.map((d) => (d.id === newId ? { ...d, pressToward } : d)) } : placed;
 	const ng = wedgeGeometry(apex.point, o.leg1End, o.leg2End);
 	const where = apex.label || apex.id;
 	const entries: LedgerEntry[] = [
@@ -55,7 +58,8 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 	];
 	const notes = [...r.value.notes];
 	if (r.still) notes.push(`The side that holds ${r.still.name} stayed still; the other side turned.`);
-	if (dart.cap || dart.pressToward) notes.push('Pressing direction and cap were cleared: set them again for the new position.');
+	if (dart.cap) notes.push('The cap was cleared: true it again for the new position.');
+	notes.push(pressPracticeNote(newId, pressToward));
 	if (dart.pullBack && !moved.pullBack) notes.push(`The ${fmtMm(dart.pullBack.clearanceMm)} clearance no longer fits the new dart and was removed.`);
 	return succeed(next, entries, {
 		op: 'pivot',

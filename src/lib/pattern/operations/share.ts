@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { piecePressByPractice } from '../press-practice';
 import { ledgerEntry, DEFAULT_SHAPING_TOLERANCES, type LedgerEntry } from '../ledger';
 import { fmtDeg, fmtMm, refuse, succeed, type OperationResult } from '../operation-result';
 import { apexById, dartById, wedgeGeometry } from '../piece';
@@ -117,7 +118,7 @@ export function share(piece: Piece, params: ShareParams): OperationResult {
 			darts.push(...newDarts);
 		}
 	}
-	const next: Piece = { ...piece, ...carried, outline: r.value.outline, darts };
+	const next: Piece = piecePressByPractice({ ...piece, ...carried, outline: r.value.outline, darts });
 	const entries: LedgerEntry[] = [
 		ledgerEntry({ apexId: apex.id, kind: 'dart', refId: dart.id, label: `dart "${dart.id}" closed`, angleRad: -g.angleRad })
 	];

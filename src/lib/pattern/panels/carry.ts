@@ -1,4 +1,5 @@
 import { outlineArea, outlineSelfIntersections, pathFromPolyline, pathLength } from '../kernel';
+import { piecePressByPractice } from '../press-practice';
 import type { Piece } from '../piece-schema';
 import { pathFirst, pathLast } from './chain-tools';
 import { nonFiniteAt } from './finite-check';
@@ -68,7 +69,7 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	const { fused, shapingMovedMm, ledgerEntries, residuals, carrySeams, reach, styleSeamEdges, placements, notes } = st;
 	reach.push(pathLast(line));
 	const id = params.pieceId ?? `${panels[0].id}-joined`;
-	const joined: Piece = { ...fused, id, name: params.name ?? `${panels[0].name} and ${panels.length - 1} more, joined` };
+	const joined: Piece = piecePressByPractice({ ...fused, id, name: params.name ?? `${panels[0].name} and ${panels.length - 1} more, joined` });
 	const problems = pieceProblems(joined);
 	if (problems.length) return panelRefuse('result_broken', `Carrying would give a broken piece, so nothing was changed: ${problems[0]}`);
 	const others = parts.map((p) => p.other);

@@ -1,4 +1,5 @@
 import { outlineArea, outlineSignedArea, pathMapPoints, type Outline, type Path, type Vec } from './join-kernel';
+import { piecePressByPractice } from '../press-practice';
 import { ledgerEntry, type LedgerEntry } from '../ledger';
 import type { Dart, Piece } from '../piece-schema';
 import { chainDeviation, chainsDeviation, dist, pathFirst, pathLast } from './chain-tools';
@@ -85,7 +86,7 @@ export function joinPieces(a: Piece, bIn: Piece, ea: Path, ebIn: Path, params: J
 			];
 		});
 		if (darts.length) notes.push(`${darts.length === 1 ? 'A dart' : `${darts.length} darts`} that the seam had absorbed ${darts.length === 1 ? 'is' : 'are'} a dart again.`);
-		return { piece: darts.length ? { ...joined, darts: [...joined.darts, ...darts] } : joined, ledgerEntries, closedAngleRad: 0, newDart: darts[0] ?? null, notes };
+		return { piece: darts.length ? piecePressByPractice({ ...joined, darts: [...joined.darts, ...darts] }) : joined, ledgerEntries, closedAngleRad: 0, newDart: darts[0] ?? null, notes };
 	}
 	const candidates = divergenceCandidates(a, b, ea, eb, tol);
 	if (candidates.length === 0) {
@@ -128,7 +129,7 @@ export function joinPieces(a: Piece, bIn: Piece, ea: Path, ebIn: Path, params: J
 	let piece = withApexAt(build(outline, a, b), wedge.apex);
 	const opened = mode === 'keep_as_dart' || wedge.sharedA !== null;
 	const newDart = opened ? dartAtPoint(outline, D, wedge.apex.id, dartId) : null;
-	if (newDart) piece = { ...piece, darts: [...piece.darts.filter((d) => d.id !== dartId), newDart] };
+	if (newDart) piece = piecePressByPractice({ ...piece, darts: [...piece.darts.filter((d) => d.id !== dartId), newDart] });
 	const notes: string[] = [];
 	if (opened && !newDart) notes.push(`The opening at ${wedge.apex.label || wedge.apex.id} has curved legs; it is left in the outline, not recorded as a dart.`);
 	const carriedBy = params.carriedBy ?? (newDart ? `dart ${dartId}` : 'the seams through the divergence point');
