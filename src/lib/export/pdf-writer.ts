@@ -5,7 +5,6 @@ import {
 	clip,
 	closePath,
 	concatTransformationMatrix,
-	degrees,
 	endPath,
 	fill,
 	lineTo,
@@ -20,7 +19,6 @@ import {
 	setStrokingColor,
 	stroke,
 	type PDFEmbeddedPage,
-	type PDFFont,
 	type PDFOperator,
 	type PDFPage
 } from 'pdf-lib';
@@ -29,32 +27,20 @@ import { PRINT_CAUTION, PT_PER_MM } from './paper';
 import type { PrintSheet } from './print-sheet';
 import { infoBlock } from './print-sheet';
 import { tileJoins } from './tiles';
+import type { PdfFonts } from './pdf-fonts';
+import { pdfTextFonts, textDraw, type PdfTextFonts } from './pdf-text';
 
 /**
  * Writes a print sheet as PDF with pdf-lib: the whole sheet is drawn once at true scale (1 mm =
  * 72/25.4 pt) on a page that becomes a form, then each page of the paper shows its region of it,
- * clipped to the printable area. Source Sans 3 is embedded and subset (the fonts come in as bytes).
+ * clipped to the printable area. Source Sans 3 is embedded and subset (the fonts come in as bytes), each
+ * script part of it only where the text needs it.
  */
-export interface PdfFonts {
-	readonly regular: Uint8Array;
-	readonly bold: Uint8Array;
-}
 
 const INK = rgb(0x1f / 255, 0x2a / 255, 0x37 / 255);
 const k = PT_PER_MM;
 
-interface Fonts {
-	regular: PDFFont;
-	bold: PDFFont;
-	charset: Set<number>;
-}
-
-/** Characters the embedded font lacks become '?', never a fallback font. */
-function printable(fonts: Fonts, text: string): string {
-	let out = '';
-	for (const ch of text) out += fonts.charset.has(ch.codePointAt(0)!) ? ch : '?';
-	return out;
-}
+type Fonts = PdfTextFonts;
 
 /** A placement of sheet coordinates (mm, y down) on a page: (x, y) → (ox + s·x, oy − s·y) in points. */
 interface Placement {
@@ -105,20 +91,13 @@ function drawItems(page: PDFPage, items: readonly DrawItem[], fonts: Fonts, at: 
 	for (const it of items) {
 		if (it.kind !== 'text') continue;
 		const size = it.sizeMm * k * (at.textScale ?? at.s / k);
-		page.drawText(printable(fonts, it.text), {
-			x: at.ox + at.s * it.at.x,
-			y: at.oy - at.s * it.at.y,
-			size,
-			font: it.bold ? fonts.bold : fonts.regular,
-			color,
-			rotate: it.turned ? degrees(90) : undefined
-		});
+		textDraw(page, fonts, it.text, { x: at.ox + at.s * it.at.x, y: at.oy - at.s * it.at.y, size, bold: it.bold, color, turned: it.turned });
 	}
 }
 
 function text(page: PDFPage, fonts: Fonts, s: string, xMm: number, yMmFromTop: number, sizePt: number, bold = false) {
 	const h = page.getHeight();
-	page.drawText(printable(fonts, s), { x: xMm * k, y: h - yMmFromTop * k, size: sizePt, font: bold ? fonts.bold : fonts.regular, color: INK });
+	textDraw(page, fonts, s, { x: xMm * k, y: h - yMmFromTop * k, size: sizePt, bold, color: INK });
 }
 
 /** The first page of a tiled print: caution, test squares, page map and how to join the pages. */
@@ -158,7 +137,7 @@ function coverPage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, f
 		const segments = corners.map((p, i) => ({ kind: 'line' as const, p0: p, p1: corners[(i + 1) % 4] }));
 		page.pushOperators(...pathOperators([{ ...rect, segments }], at));
 		if (!tile.blank) {
-			page.drawText(tile.code, { x: at.ox + at.s * (x0 + stepX / 2) - 8, y: at.oy - at.s * (y0 + stepY / 2) - 5, size: 14, font: fonts.bold, color: INK });
+			textDraw(page, fonts, tile.code, { x: at.ox + at.s * (x0 + stepX / 2) - 8, y: at.oy - at.s * (y0 + stepY / 2) - 5, size: 14, bold: true, color: INK });
 		}
 	}
 }
@@ -201,10 +180,8 @@ function tilePage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, in
 export async function printPdf(sheet: PrintSheet, fontBytes: PdfFonts): Promise<Uint8Array> {
 	const doc = await PDFDocument.create();
 	doc.registerFontkit(fontkit);
-	const regular = await doc.embedFont(fontBytes.regular, { subset: true });
-	const bold = await doc.embedFont(fontBytes.bold, { subset: true });
-	const charset = new Set([...regular.getCharacterSet()].filter((c) => bold.getCharacterSet().includes(c)));
-	const fonts: Fonts = { regular, bold, charset };
+	const texts = [sheet.title, ...sheet.items.flatMap((it) => (it.kind === 'text' ? [it.text] : []))];
+	const fonts = await pdfTextFonts(doc, fontBytes, texts);
 	doc.setTitle(sheet.title);
 	doc.setCreator('Dartelier');
 	doc.setProducer('Dartelier (pdf-lib)');

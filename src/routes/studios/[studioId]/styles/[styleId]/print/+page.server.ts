@@ -1,5 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
+import { unprintableCharacters } from '$lib/export/pdf-fonts';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { styleOverview } from '$lib/server/versions/overview';
@@ -15,5 +16,7 @@ export const load: PageServerLoad = async (event) => {
 	const pieces = overview.pieces
 		.filter((p) => p.shown)
 		.map((p) => ({ id: p.id, name: p.name, cut: p.cut, fabric: p.fabric, version: p.shown!.number, state: p.shown!.state }));
-	return { style: { id: overview.style.id, name: overview.style.name, code: overview.style.code }, pieces };
+	// characters of the labels that no part of the embedded font has: printed as '?', so the page warns
+	const unprintable = unprintableCharacters([overview.style.name, overview.style.code ?? '', ...pieces.flatMap((p) => [p.name, p.fabric])]);
+	return { style: { id: overview.style.id, name: overview.style.name, code: overview.style.code }, pieces, unprintable };
 };
