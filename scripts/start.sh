@@ -8,6 +8,10 @@ cd "$ROOT"
 APP_PORT="${PORT:-4173}"
 MAIL_SMTP_PORT="${MAIL_DEV_SMTP_PORT:-2526}"
 MAIL_HTTP_PORT="${MAIL_DEV_HTTP_PORT:-4174}"
+# The local payments fake (scripts/payments-dev.ts), unless the environment names a real provider account.
+PAYMENTS_PORT="${PAYMENTS_FAKE_PORT:-4176}"
+USE_PAYMENTS_FAKE=1
+[ -n "${STRIPE_SECRET_KEY:-}" ] && USE_PAYMENTS_FAKE=0
 # Which of the project's clusters to use: dev (the start script's own test uses scratch).
 CLUSTER="${DARTELIER_START_CLUSTER:-dev}"
 # The build command (the start script's own test puts a stand-in here).
@@ -33,12 +37,20 @@ fi
 
 cleanup() {
 	[ -n "${MAIL_PID:-}" ] && kill "$MAIL_PID" 2>/dev/null || true
+	[ -n "${PAYMENTS_PID:-}" ] && kill "$PAYMENTS_PID" 2>/dev/null || true
 	[ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null || true
 }
 trap cleanup EXIT INT TERM
 
 MAIL_DEV_SMTP_PORT="$MAIL_SMTP_PORT" MAIL_DEV_HTTP_PORT="$MAIL_HTTP_PORT" npx tsx scripts/mail-dev.ts >"$RUN_DIR/mail-dev.log" 2>&1 &
 MAIL_PID=$!
+if [ "$USE_PAYMENTS_FAKE" = 1 ]; then
+	export STRIPE_SECRET_KEY=sk_test_dartelier_local STRIPE_WEBHOOK_SECRET=whsec_dartelier_local
+	export STRIPE_API_HOST=127.0.0.1 STRIPE_API_PORT="$PAYMENTS_PORT" STRIPE_API_PROTOCOL=http
+	PAYMENTS_FAKE_PORT="$PAYMENTS_PORT" PAYMENTS_FAKE_WEBHOOK_URL="http://127.0.0.1:$APP_PORT/api/billing/webhook" \
+		npx tsx scripts/payments-dev.ts >"$RUN_DIR/payments-dev.log" 2>&1 &
+	PAYMENTS_PID=$!
+fi
 
 # adapter-node: without ORIGIN it assumes https, which would refuse form posts on plain-http loopback.
 export HOST=127.0.0.1 PORT="$APP_PORT" ORIGIN="${ORIGIN:-http://127.0.0.1:$APP_PORT}"
@@ -52,7 +64,8 @@ answers() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
 for _ in $(seq 1 600); do
 	kill -0 "$APP_PID" 2>/dev/null || die "the app stopped at once; see the lines above"
 	kill -0 "$MAIL_PID" 2>/dev/null || die "the dev inbox stopped at once; see .run/mail-dev.log"
-	answers "$APP_PORT" && answers "$MAIL_HTTP_PORT" && break
+	[ -z "${PAYMENTS_PID:-}" ] || kill -0 "$PAYMENTS_PID" 2>/dev/null || die "the payments fake stopped at once; see .run/payments-dev.log"
+	answers "$APP_PORT" && answers "$MAIL_HTTP_PORT" && { [ -z "${PAYMENTS_PID:-}" ] || answers "$PAYMENTS_PORT"; } && break
 	sleep 0.1
 done
 
@@ -62,6 +75,9 @@ const d = JSON.parse(require("node:fs").readFileSync("fixtures/demo-studio.json"
 const roles = { owner: "owner", patterncutter: "pattern cutter", designer: "designer", sampleroom: "sample room" };
 console.log(`  Demo studio "${d.studio}", one user per role, password for each: ${d.password}`);
 for (const u of d.users) console.log(`    ${(roles[u.role] ?? u.role).padEnd(16)}${u.email}`);
+const b = JSON.parse(require("node:fs").readFileSync("fixtures/demo-billing.json", "utf8"));
+const o = b.sketch.users.find((u) => u.role === "owner");
+console.log(`  "${d.studio}" is on the Studio plan; "${b.sketch.studio}" on the free Sketch plan: ${o.email}`);
 ')
 
 cat <<MSG
@@ -73,9 +89,10 @@ $DEMO_USERS
   Also running:
 $(printf '    %-22s%s\n' "Dev inbox" "http://127.0.0.1:$MAIL_HTTP_PORT   (invitation and password e-mails)")
 $(printf '    %-22s%s\n' "PostgreSQL ($PG_NAME)" "127.0.0.1:$PG_PORT, database $PG_DB")
-  Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log)
+$([ -n "${PAYMENTS_PID:-}" ] && printf '    %-22s%s\n' "Payments (local fake)" "http://127.0.0.1:$PAYMENTS_PORT   (test card 4242 4242 4242 4242)")
+  Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log, payments-dev.log)
 
-  Ctrl-C stops the app and the inbox. The database keeps running: npm run db:stop stops it.
+  Ctrl-C stops the app, the inbox and the payments fake. The database keeps running: npm run db:stop stops it.
 
 MSG
 wait "$APP_PID"

@@ -58,6 +58,8 @@ export interface Can {
 	readonly invite: boolean;
 	/** Rename the studio. */
 	readonly manageStudio: boolean;
+	/** See and change the studio's plan, seats and invoices (the Billing page). */
+	readonly manageBilling: boolean;
 }
 
 /** The roles in their usual order, each with its label, for choosers. */

@@ -3,6 +3,7 @@
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import type { TestProject } from 'vitest/node';
+import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart } from '../../scripts/payments-fake/server';
 import { dbCreate } from '../../src/lib/server/db/index';
 import { migrateToLatest } from '../../src/lib/server/db/migrator';
 
@@ -44,6 +45,8 @@ export default async function setup(project: TestProject) {
 	}
 	const [appPort, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
 	const env = { ...process.env, DATABASE_URL: databaseUrl };
+	// the payment provider's local fake, in this process; its webhooks go to the app below
+	const payments = await paymentsFakeStart({ port: 0, demo: true, webhookUrl: `http://127.0.0.1:${appPort}/api/billing/webhook` });
 	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
 		env: { ...env, MAIL_DEV_SMTP_PORT: String(smtpPort), MAIL_DEV_HTTP_PORT: String(inboxPort) },
 		stdio: ['ignore', 'inherit', 'inherit'],
@@ -58,7 +61,12 @@ export default async function setup(project: TestProject) {
 			BODY_SIZE_LIMIT: '8M',
 			SMTP_HOST: '127.0.0.1',
 			SMTP_PORT: String(smtpPort),
-			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>'
+			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>',
+			STRIPE_SECRET_KEY: PAYMENTS_FAKE_KEY,
+			STRIPE_WEBHOOK_SECRET: PAYMENTS_FAKE_WEBHOOK_SECRET,
+			STRIPE_API_HOST: '127.0.0.1',
+			STRIPE_API_PORT: String(payments.port),
+			STRIPE_API_PROTOCOL: 'http'
 		},
 		stdio: ['ignore', 'inherit', 'inherit']
 	});
@@ -68,9 +76,11 @@ export default async function setup(project: TestProject) {
 	await waitFor(inboxUrl, mail);
 	project.provide('baseUrl', baseUrl);
 	project.provide('inboxUrl', inboxUrl);
+	project.provide('paymentsUrl', payments.url);
 	project.provide('databaseUrl', databaseUrl);
 	return async () => {
 		app.kill('SIGTERM');
+		await payments.close();
 		if (mail.pid) {
 			try {
 				process.kill(-mail.pid, 'SIGTERM');
@@ -86,5 +96,7 @@ declare module 'vitest' {
 		baseUrl: string;
 		inboxUrl: string;
 		databaseUrl: string;
+		/** the local payments fake (its /_fake/events lists what it sent) */
+		paymentsUrl: string;
 	}
 }

@@ -5,11 +5,14 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { inject } from 'vitest';
+import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart, type PaymentsFake } from '../../scripts/payments-fake/server';
 import { startMailbox, type Mailbox } from './mailbox';
 
 export interface RunningApp {
 	baseUrl: string;
 	mailbox: Mailbox;
+	/** the local payments fake the app's SDK talks to; its webhooks go to this app */
+	payments: PaymentsFake;
 	close(): Promise<void>;
 }
 
@@ -17,6 +20,7 @@ export async function startApp(): Promise<RunningApp> {
 	const handlerFile = path.resolve(process.env.DARTELIER_BUILD_DIR ?? 'build', 'handler.js');
 	if (!existsSync(handlerFile)) throw new Error(`${handlerFile} is missing: run \`npx vite build\` first`);
 	const mailbox = await startMailbox();
+	const payments = await paymentsFakeStart({ port: 0, demo: true });
 	const env: NodeJS.ProcessEnv = {
 		...process.env,
 		DATABASE_URL: inject('databaseUrl'),
@@ -24,7 +28,12 @@ export async function startApp(): Promise<RunningApp> {
 		SMTP_PORT: String(mailbox.port),
 		MAIL_FROM: 'Dartelier tests <tests@dartelier.localhost>',
 		// adapter-node's own cap (default 512K) set above the API's 1 MB limit, as in production.
-		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '12M'
+		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '12M',
+		STRIPE_SECRET_KEY: PAYMENTS_FAKE_KEY,
+		STRIPE_WEBHOOK_SECRET: PAYMENTS_FAKE_WEBHOOK_SECRET,
+		STRIPE_API_HOST: '127.0.0.1',
+		STRIPE_API_PORT: String(payments.port),
+		STRIPE_API_PROTOCOL: 'http'
 	};
 	const worker = new Worker(new URL('./app-worker.mjs', import.meta.url), { workerData: { handlerFile }, env });
 	const port = await new Promise<number>((resolve, reject) => {
@@ -32,9 +41,11 @@ export async function startApp(): Promise<RunningApp> {
 		worker.once('error', reject);
 		worker.once('exit', (code) => reject(new Error(`app worker exited (${code}) before listening`)));
 	});
+	payments.setWebhookUrl(`http://127.0.0.1:${port}/api/billing/webhook`);
 	return {
 		baseUrl: `http://127.0.0.1:${port}`,
 		mailbox,
+		payments,
 		async close() {
 			await new Promise<void>((resolve) => {
 				const t = setTimeout(resolve, 2000);
@@ -46,6 +57,7 @@ export async function startApp(): Promise<RunningApp> {
 			});
 			await worker.terminate();
 			await mailbox.close();
+			await payments.close();
 		}
 	};
 }

@@ -64,7 +64,14 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/api/studios/[studioId]/invitations': {
 		GET: { path: '/api/studios/[studioId]/invitations', ok: 200 },
 		POST: { path: '/api/studios/[studioId]/invitations', json: {}, ok: 400 }
-	}
+	},
+	// billing: owners only; the provider's webhook is open to anyone, and refuses a body without its signature
+	'/studios/[studioId]/billing': { GET: { path: '/studios/[studioId]/billing', ok: 200 } },
+	'/api/studios/[studioId]/billing': { GET: { path: '/api/studios/[studioId]/billing', ok: 200 } },
+	'/api/studios/[studioId]/billing/checkout': { POST: { path: '/api/studios/[studioId]/billing/checkout', json: {}, ok: 400 } },
+	'/api/studios/[studioId]/billing/portal': { POST: { path: '/api/studios/[studioId]/billing/portal', json: {}, ok: 400 } },
+	'/api/studios/[studioId]/billing/subscription': { PATCH: { path: '/api/studios/[studioId]/billing/subscription', json: {}, ok: 400 } },
+	'/api/billing/webhook': { POST: { path: '/api/billing/webhook', json: {}, ok: 400 } }
 };
 
 /** Route ids of the app, from the files under src/routes (as SvelteKit derives them). */

@@ -31,7 +31,7 @@ describe('npm start', () => {
 	});
 
 	it('prints only where the app is, the demo sign-in with every e-mail, what else runs, and keeps the build warnings in .run/build.log', async () => {
-		const [appPort, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
+		const [appPort, smtpPort, inboxPort, paymentsPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
 		// a stale build stamp would skip the build step this test is about
 		execFileSync('rm', ['-f', 'build/.dartelier-built']);
 		child = spawn('bash', ['scripts/start.sh'], {
@@ -40,6 +40,7 @@ describe('npm start', () => {
 				PORT: String(appPort),
 				MAIL_DEV_SMTP_PORT: String(smtpPort),
 				MAIL_DEV_HTTP_PORT: String(inboxPort),
+				PAYMENTS_FAKE_PORT: String(paymentsPort),
 				DARTELIER_START_CLUSTER: 'scratch',
 				DARTELIER_START_BUILD: 'node tests/integration/fixtures/noisy-build.mjs'
 			},
@@ -55,6 +56,8 @@ describe('npm start', () => {
 		expect(output).toContain(appUrl);
 		expect((await fetch(appUrl)).status).toBe(200);
 		expect((await fetch(`http://127.0.0.1:${inboxPort}`)).status).toBe(200);
+		// the payments fake answers the provider's API (with the local key only)
+		expect((await fetch(`http://127.0.0.1:${paymentsPort}/v1/invoices`)).status).toBe(401);
 
 		const plain = output.replace(/\x1b\[[0-9;]*m/g, '');
 		// the demo sign-in: the password and every demo user's e-mail, roles as people say them
@@ -66,6 +69,7 @@ describe('npm start', () => {
 		// what else runs
 		expect(plain).toContain(`http://127.0.0.1:${inboxPort}`);
 		expect(plain).toMatch(/PostgreSQL \(scratch\)/);
+		expect(plain).toContain(`http://127.0.0.1:${paymentsPort}`);
 		// none of the build's own output, and no command the user need not run
 		expect(plain).not.toContain('Circular dependency');
 		expect(plain).not.toContain('npm run preview');

@@ -20,6 +20,8 @@ describe('what a member may do, decided once from the authorization table', () =
 			expect(can.manageMembers).toBe(allowed(`${s}/members/[userId]`, 'PATCH', role));
 			expect(can.invite).toBe(allowed(`${s}/invitations`, 'POST', role));
 			expect(can.manageStudio).toBe(allowed(s, 'PATCH', role));
+			expect(can.manageBilling).toBe(allowed(`${s}/billing`, 'GET', role));
+			expect(can.manageBilling).toBe(allowed('/studios/[studioId]/billing', 'GET', role));
 			// proposing and signing off go through the state route; whoever may do either is let through it
 			expect(can.propose || can.signOff).toBe(allowed(`${s}/pieces/[pieceId]/versions/[versionId]/state`, 'POST', role));
 		}
@@ -29,10 +31,10 @@ describe('what a member may do, decided once from the authorization table', () =
 	// pattern cutter drafts and proposes, the designer signs off, the sample room sees signed-off versions.
 	it('gives each role what the product says it does', () => {
 		const expected: Record<Role, Can> = {
-			owner: { edit: true, propose: true, signOff: true, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: true, invite: true, manageStudio: true },
-			patterncutter: { edit: true, propose: true, signOff: false, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: false, invite: false, manageStudio: false },
-			designer: { edit: false, propose: false, signOff: true, seeDrafts: true, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false },
-			sampleroom: { edit: false, propose: false, signOff: false, seeDrafts: false, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false }
+			owner: { edit: true, propose: true, signOff: true, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: true, invite: true, manageStudio: true, manageBilling: true },
+			patterncutter: { edit: true, propose: true, signOff: false, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: false, invite: false, manageStudio: false, manageBilling: false },
+			designer: { edit: false, propose: false, signOff: true, seeDrafts: true, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false },
+			sampleroom: { edit: false, propose: false, signOff: false, seeDrafts: false, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false }
 		};
 		for (const role of ROLES) expect(roleCan(role)).toEqual(expected[role]);
 	});

@@ -61,6 +61,8 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/measurements/[setId]': { GET: ALL_ROLES, POST: EDITORS },
 	'/studios/[studioId]/measurements/[setId]/edit': { GET: EDITORS, POST: EDITORS },
 	'/studios/[studioId]/styles/new': { GET: EDITORS, POST: EDITORS },
+	// billing: the plan, seats and invoices are the owners' business
+	'/studios/[studioId]/billing': { GET: OWNER },
 	// JSON API
 	'/api/me': { GET: 'signed_in' },
 	'/api/studios': { GET: 'signed_in', POST: 'signed_in' },
@@ -68,6 +70,12 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/members': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/members/[userId]': { PATCH: OWNER, DELETE: OWNER },
 	'/api/studios/[studioId]/invitations': { GET: OWNER, POST: OWNER },
+	'/api/studios/[studioId]/billing': { GET: OWNER },
+	'/api/studios/[studioId]/billing/checkout': { POST: OWNER },
+	'/api/studios/[studioId]/billing/portal': { POST: OWNER },
+	'/api/studios/[studioId]/billing/subscription': { PATCH: OWNER },
+	// the payment provider's events: anyone may post, only a body signed with the webhook secret is read
+	'/api/billing/webhook': { POST: 'public' },
 	// styles, pieces, versions (the sample room sees signed-off versions only; handlers filter)
 	'/api/studios/[studioId]/styles': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/styles/[styleId]': { GET: ALL_ROLES, PATCH: EDITORS },
@@ -111,7 +119,8 @@ export function roleCan(role: Role): Can {
 		editMeasurements: roleMay(role, `${studio}/measurement-sets`, 'POST'),
 		manageMembers: roleMay(role, `${studio}/members/[userId]`, 'PATCH'),
 		invite: roleMay(role, `${studio}/invitations`, 'POST'),
-		manageStudio: roleMay(role, studio, 'PATCH')
+		manageStudio: roleMay(role, studio, 'PATCH'),
+		manageBilling: roleMay(role, `${studio}/billing`, 'GET') && roleMay(role, '/studios/[studioId]/billing', 'GET')
 	};
 }
 

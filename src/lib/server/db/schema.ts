@@ -142,6 +142,9 @@ export interface Database {
 	piece_versions: PieceVersionsTable;
 	seam_pairs: SeamPairsTable;
 	style_changes: StyleChangesTable;
+	studio_billing: StudioBillingTable;
+	billing_events: BillingEventsTable;
+	billing_invoices: BillingInvoicesTable;
 }
 
 /** Multi-piece steps of one save (migration 2026-12-03-0040): recomputed from their sources' versions. */
@@ -167,5 +170,47 @@ export interface MeasurementSetsTable {
 	/** The chart's source as data ({ standard, table, size, variant }); null for client sets. */
 	chart_source: ColumnType<unknown, string | null | undefined, string | null>;
 	sort_order: Generated<number>;
+	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+/** Studio billing (migration 2026-12-03-0050): the studio's state at the payment provider. */
+export interface StudioBillingTable {
+	studio_id: string;
+	customer_id: string | null;
+	subscription_id: string | null;
+	status: string | null;
+	price_id: string | null;
+	interval: 'month' | 'year' | null;
+	seats: Generated<number>;
+	cancel_at_period_end: Generated<boolean>;
+	current_period_end: Date | null;
+	canceled_at: Date | null;
+	ended_at: Date | null;
+	provider_updated_at: Date | null;
+	payment_failed_at: Date | null;
+	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+
+/** The provider's events already handled, by id: each is handled once. */
+export interface BillingEventsTable {
+	id: string;
+	type: string;
+	studio_id: string | null;
+	provider_created_at: Date;
+	outcome: 'applied' | 'stale' | 'unknown_studio' | 'ignored';
+	received_at: CreatedAt;
+}
+
+/** The studio's invoices as the provider last showed them. */
+export interface BillingInvoicesTable {
+	id: string;
+	studio_id: string;
+	number: string | null;
+	status: string;
+	amount_due: number;
+	amount_paid: number;
+	currency: string;
+	hosted_url: string | null;
+	provider_created_at: Date;
 	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
 }

@@ -8,6 +8,7 @@ import { ApiError } from '../http-errors';
 import { draftedStyleDiscard } from '../repositories/measurement-sets';
 import { seamPairsCreate } from '../repositories/seam-pairs';
 import { stylesCreate, type StyleRow } from '../repositories/styles';
+import { planLimitEnforce } from '../billing/plan';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { measurementChartsEnsure } from './charts';
 import { draftAttempt, draftCulprits, draftCulpritText, draftPieces } from './draft-culprit';
@@ -61,6 +62,7 @@ export interface DraftedStyle {
  * refused, the new style is removed again and the refusal is reported.
  */
 export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: string, req: BlockDraftRequest): Promise<DraftedStyle> {
+	await planLimitEnforce(db, studioId, 'styles');
 	await measurementChartsEnsure(db, studioId);
 	const set = await measurementSetOr404(db, studioId, req.measurementSetId);
 	const mm = measurementsMmOf(set.values);

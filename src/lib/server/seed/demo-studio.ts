@@ -6,11 +6,14 @@ import { measurementChartsSeed } from '../measurements/charts';
 import { membershipsAddIfAbsent, membershipsForUser } from '../repositories/memberships';
 import { studiosCreate } from '../repositories/studios';
 import { usersByEmail, usersCreate } from '../repositories/users';
+import { demoBillingSeed } from './demo-billing';
 import { demoStyleSeed } from './demo-style';
 
 export interface DemoSeedResult {
 	studioId: string;
 	created: boolean;
+	/** the second demo studio, on the free Sketch plan (fixtures/demo-billing.json) */
+	sketchStudioId: string;
 }
 
 /**
@@ -39,5 +42,7 @@ export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
 	// every version is verified and saved through versionSave, which opens its own transactions.
 	const { patterncutter, designer } = seeded.userIds;
 	if (patterncutter && designer) await demoStyleSeed(db, seeded.studioId, { patterncutter, designer });
-	return { studioId: seeded.studioId, created: seeded.created };
+	// the demo's plans: this studio on Studio with its seats paid, a second one on Sketch at its limits
+	const { sketchStudioId } = await demoBillingSeed(db, seeded.studioId);
+	return { studioId: seeded.studioId, created: seeded.created, sketchStudioId };
 }

@@ -2,6 +2,7 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { apiRoute, readJson } from '$lib/server/api';
 import { invitationSend } from '$lib/server/auth/accounts';
+import { planLimitEnforce } from '$lib/server/billing/plan';
 import { OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
@@ -28,6 +29,8 @@ const createSchema = z.object({ email: emailSchema, role: roleSchema });
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { studioId, user } = await requireRole(event, OWNER);
 	const body = await readJson(event.request, createSchema);
+	// a pending invitation takes a seat: refused (402) past the plan's seats
+	await planLimitEnforce(db(), studioId, 'seats');
 	let r;
 	try {
 		r = await invitationSend(db(), {
