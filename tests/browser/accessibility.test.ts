@@ -23,6 +23,7 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/new': '/studios/new',
 		'/studios/[studioId]': s,
 		'/studios/[studioId]/members': `${s}/members`,
+		'/studios/[studioId]/billing': `${s}/billing`,
 		'/studios/[studioId]/styles/[styleId]': `${s}/styles/${d.styleId}`,
 		'/studios/[studioId]/styles/[styleId]/compare': `${s}/styles/${d.styleId}/compare`,
 		'/studios/[studioId]/styles/[styleId]/edit': `${s}/styles/${d.styleId}/edit`,

@@ -3,6 +3,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, inject } from 'vitest';
 import { browserLaunch } from './chromium';
+import billing from '../../fixtures/demo-billing.json';
 import demo from '../../fixtures/demo-studio.json';
 import { dbCreate } from '../../src/lib/server/db/index';
 import type { Role } from '../../src/lib/roles';
@@ -21,13 +22,15 @@ export interface DemoStudio {
 	clientSetId: string;
 	users: { email: string; name: string; role: Role }[];
 	password: string;
+	/** the second demo studio, on the free Sketch plan, and its people (same password) */
+	sketch: { studioId: string; users: { email: string; name: string; role: Role }[] };
 }
 
 /** Seeds the demo studio (idempotent) and finds the ids its pages need. */
 export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 	const db = dbCreate(databaseUrl, 2);
 	try {
-		const { studioId } = await demoStudioSeed(db);
+		const { studioId, sketchStudioId } = await demoStudioSeed(db);
 		const style = await db.selectFrom('styles').select('id').where('studio_id', '=', studioId).orderBy('created_at').executeTakeFirstOrThrow();
 		const signed = await db
 			.selectFrom('piece_versions')
@@ -51,7 +54,8 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 			setIds: [sets[0].id, sets[1].id],
 			clientSetId: client.id,
 			users: demo.users as DemoStudio['users'],
-			password: demo.password
+			password: demo.password,
+			sketch: { studioId: sketchStudioId, users: billing.sketch.users as DemoStudio['users'] }
 		};
 	} finally {
 		await db.destroy();
@@ -68,14 +72,25 @@ export async function demoSignIn(
 ): Promise<{ context: BrowserContext; page: Page }> {
 	const user = studio.users.find((u) => u.role === role);
 	if (!user) throw new Error(`the demo studio has no ${role}`);
+	return demoSignInAs(browser, baseUrl, user.email, studio.password, options);
+}
+
+/** A fresh browser context signed in as one of the demo's people, by e-mail. */
+export async function demoSignInAs(
+	browser: Browser,
+	baseUrl: string,
+	email: string,
+	password: string,
+	options: Parameters<Browser['newContext']>[0] = {}
+): Promise<{ context: BrowserContext; page: Page }> {
 	const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, ...options });
 	const page = await context.newPage();
 	const r = await page.request.post(`${baseUrl}/signin`, {
-		form: { email: user.email, password: studio.password },
+		form: { email, password },
 		headers: { origin: baseUrl, accept: 'text/html' },
 		maxRedirects: 0
 	});
-	if (r.status() !== 303) throw new Error(`sign-in as ${user.email} failed: ${r.status()}`);
+	if (r.status() !== 303) throw new Error(`sign-in as ${email} failed: ${r.status()}`);
 	return { context, page };
 }
 

@@ -8,7 +8,7 @@ import { changeSave } from '../../src/lib/server/changes/save';
 import { changeSaveSchema } from '../../src/lib/server/changes/schemas';
 import { startApp, type RunningApp } from './app-server';
 import { carryBody, panelStyle } from './change-fixtures';
-import { Client, memberAdd, sessionClient, studioMake, testDb, testDbClose, userMake, type TestUser } from './helpers';
+import { Client, memberAdd, sessionClient, studioMake, studioOnStudioPlan, testDb, testDbClose, userMake, type TestUser } from './helpers';
 
 let app: RunningApp;
 let studioId: string;
@@ -18,6 +18,7 @@ let c: Client;
 beforeAll(async () => {
 	app = await startApp();
 	studioId = (await studioMake('Changes')).id;
+	await studioOnStudioPlan(studioId); // these tests make many styles: past the free plan's five
 	cutter = await userMake('cutter');
 	await memberAdd(studioId, cutter.id, 'patterncutter');
 	c = await sessionClient(app.baseUrl, cutter.id);

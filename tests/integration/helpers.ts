@@ -95,6 +95,17 @@ export async function studioMake(name = 'Atelier'): Promise<{ id: string; name: 
 	return studiosCreate(testDb(), `${name} ${uniq()}`);
 }
 
+/**
+ * Puts a studio on the Studio plan straight in the database, as a handled subscription would leave it:
+ * for tests about other things that make more styles or members than the free plan allows.
+ */
+export async function studioOnStudioPlan(studioId: string, seats = 50): Promise<void> {
+	await testDb()
+		.insertInto('studio_billing')
+		.values({ studio_id: studioId, subscription_id: `sub_test_${uniq()}`, status: 'active', interval: 'month', seats, provider_updated_at: new Date() })
+		.execute();
+}
+
 export async function memberAdd(studioId: string, userId: string, role: Role): Promise<void> {
 	await membershipsCreate(testDb(), { studioId, userId, role });
 }

@@ -9,7 +9,7 @@ import { pieceMetrics } from '../../src/lib/pattern/metrics';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { versionSave } from '../../src/lib/server/versions/save';
 import { startApp, type RunningApp } from './app-server';
-import { Client, memberAdd, signedInClient, studioMake, testDb, testDbClose, throttleAddressReset, userMake, type TestUser } from './helpers';
+import { Client, memberAdd, signedInClient, studioMake, studioOnStudioPlan, testDb, testDbClose, throttleAddressReset, userMake, type TestUser } from './helpers';
 
 let app: RunningApp;
 let studioId: string;
@@ -49,6 +49,7 @@ beforeAll(async () => {
 	await throttleAddressReset();
 	const studio = await studioMake('Versions');
 	studioId = studio.id;
+	await studioOnStudioPlan(studioId); // these tests make many styles: past the free plan's five
 	cutter = await userMake('cutter');
 	designer = await userMake('designer');
 	await memberAdd(studioId, cutter.id, 'patterncutter');

@@ -49,6 +49,12 @@ describe('plan rules', () => {
 		expect(limitsExceeded(studio(6), { seats: 5, styles: 7 })).toEqual([]);
 	});
 
+	it('lets an owner have one studio on Sketch, any number on Studio', () => {
+		expect(limitCheck(sketch, 'studios_owned', 0).ok).toBe(true);
+		expect(limitCheck(sketch, 'studios_owned', 1).ok).toBe(false);
+		expect(limitCheck(studio(3), 'studios_owned', 9).ok).toBe(true);
+	});
+
 	it('prices seats per interval', () => {
 		expect(priceLabel('month', 5)).toBe('€75.00 a month');
 		expect(priceLabel('year', 2)).toBe('€300.00 a year');
