@@ -60,7 +60,8 @@ describe('DXF export (pattern-exchange layout)', () => {
 				expect(Math.abs(area(sew[0].vertices!) - outlineArea(outlinePleatsAcross(p.piece))) / want).toBeLessThan(0.001);
 			}
 			if (p.piece.grainline) expect(entities.some((e) => e.type === 'LINE' && e.layer === '7')).toBe(true);
-			expect(entities.filter((e) => e.type === 'POINT' && e.layer === '4')).toHaveLength(p.piece.notches.length);
+			// a slit per notch, two for a double notch
+			expect(entities.filter((e) => e.type === 'LINE' && e.layer === '4')).toHaveLength(p.piece.notches.reduce((t, n) => t + n.count, 0));
 		}
 	});
 });

@@ -5,10 +5,12 @@ import { outlinePleatsAcross, pleatMarks } from '$lib/pattern/export/pleat-marks
 import type { Piece } from '$lib/pattern/piece-schema';
 import { shelfPack } from './pack';
 import { PIECE_GAP_MM } from './paper';
+import { notchSlits } from './marks';
 
 /**
  * DXF in the layout of the open pattern-exchange format (ASTM D6673), in millimetres: one block per
- * piece, inserted side by side in model space. Layer numbers as recalled from the standard (status M,
+ * piece, inserted side by side in model space. Notches are written as slits (short lines in from the cut
+ * edge, two side by side for a double notch). Layer numbers as recalled from the standard (status M,
  * memory; not checked against the text of ASTM D6673):
  */
 export const DXF_LAYERS = {
@@ -80,7 +82,10 @@ export function styleDxf(pieces: readonly DxfPieceInput[]): string {
 		closed(outlineFlatten(piece.seamAllowance?.cutLine ?? stitching, DXF_FLATTEN_TOLERANCE_MM), L.boundary);
 		if (piece.seamAllowance) closed(outlineFlatten(stitching, DXF_FLATTEN_TOLERANCE_MM), L.sewLine);
 		if (piece.grainline) block.addLine(flip(piece.grainline.from), flip(piece.grainline.to), { layerName: L.grainLine });
-		for (const n of piece.notches) block.addPoint(n.at.x, -n.at.y, 0, { layerName: L.notches });
+		// notches as the slits a cutter snips (marks.ts): one line each, in from the cut edge; a double notch is two
+		for (const slit of notchSlits(piece, stitching)) {
+			if (slit.kind === 'path') block.addLine(flip(slit.segments[0].p0), flip(slit.segments[0].p1), { layerName: L.notches });
+		}
 		for (const h of piece.drillHoles) block.addPoint(h.at.x, -h.at.y, 0, { layerName: L.drillHoles });
 		for (const d of piece.darts) {
 			const apex = piece.apexes.find((a) => a.id === d.apexId);

@@ -2,6 +2,12 @@ import type { Outline, Path, Segment, Vec } from '$lib/pattern/kernel';
 import { outlineArea, outlineProblems, pathLength } from '$lib/pattern/kernel';
 import { pieceSchema, type Piece } from '$lib/pattern/piece-schema';
 
+/** A notch read from a file: where it sits on the net outline, and how many slits it has. */
+export interface ImportedNotch {
+	readonly at: Vec;
+	readonly count: 1 | 2;
+}
+
 /**
  * What an imported file holds, before it becomes pieces: per piece a boundary (the cut line), maybe a
  * sew line, grain, notches, internal lines and drill holes, in millimetres, y down. Pure.
@@ -15,7 +21,7 @@ export interface ImportedPiece {
 	/** Corners where the net outline touches itself (shared dart apexes). */
 	readonly touchPoints?: readonly Vec[];
 	readonly grainline?: { from: Vec; to: Vec };
-	readonly notches: readonly Vec[];
+	readonly notches: readonly ImportedNotch[];
 	readonly internalLines: readonly Path[];
 	readonly drillHoles: readonly Vec[];
 	readonly cut: Piece['cut'];
@@ -100,7 +106,7 @@ export function importedPieces(items: readonly ImportedPiece[]): Piece[] {
 			apexes: (it.touchPoints ?? []).map((point, k) => ({ id: `a${k + 1}`, kind: 'dart_pivot', label: 'shared corner', point })),
 			seamAllowance,
 			grainline: it.grainline ? { ...it.grainline, arrowheads: 'both' } : null,
-			notches: it.notches.map((at, k) => ({ id: `n${k + 1}`, at, count: 1 })),
+			notches: it.notches.map((n, k) => ({ id: `n${k + 1}`, at: n.at, count: n.count })),
 			internalLines: it.internalLines.filter((l) => l.segments.length).map((path, k) => ({ id: `l${k + 1}`, path })),
 			drillHoles: it.drillHoles.map((at, k) => ({ id: `h${k + 1}`, at })),
 			cut: it.cut,
