@@ -1,7 +1,7 @@
 import { Parser } from 'htmlparser2';
 import { SVGPathData, SVGShapes } from 'svg-pathdata';
 import type { Outline, Path, Segment, Vec } from '$lib/pattern/kernel';
-import { boundaryChecked, ImportRefusal, type ImportedPiece } from './import-model';
+import { boundaryChecked, ImportRefusal, type ImportedNotch, type ImportedPiece } from './import-model';
 import { svgRefusalOf, svgRole, transformParse, type Matrix, matrixMultiply, matrixApply } from './svg-read';
 
 /**
@@ -9,7 +9,9 @@ import { svgRefusalOf, svgRole, transformParse, type Matrix, matrixMultiply, mat
  * the file's units (mm, cm, in, pt, pc, px at 96 per inch; the viewBox honoured). Groups named like the
  * product's own export ("cut-line", "stitching-line", "grainline", "notches", darts and internal lines)
  * are read as those layers, inside a group per piece ("piece-…"); in other files every closed path is a
- * piece's boundary. Scripts, event handlers and references to anything outside the file are refused.
+ * piece's boundary. <use> shows the element it refers to within the file (its transform and x, y
+ * honoured; content of <defs> and <symbol> is drawn only through a <use>). Scripts, event handlers and
+ * references to anything outside the file are refused.
  */
 
 interface Shape {
@@ -86,13 +88,22 @@ function subpaths(data: SVGPathData): { segments: Segment[]; closed: boolean }[]
 	return out;
 }
 
-export function svgImport(text: string): ImportedPiece[] {
-	const shapes: Shape[] = [];
-	const stack: { matrix: Matrix; role: ReturnType<typeof svgRole>; group: number; name?: string }[] = [];
-	const groupNames: { name: string; cut: ImportedPiece['cut'] }[] = [];
-	let root = false;
+interface Node {
+	readonly name: string;
+	readonly attrs: Record<string, string>;
+	readonly children: Node[];
+}
+
+/** Elements whose content is drawn only where a <use> shows it. */
+const NOT_DRAWN = new Set(['defs', 'symbol', 'clippath', 'mask', 'pattern', 'marker', 'lineargradient', 'radialgradient']);
+/** How deep <use> may nest (a deeper chain is taken for a loop). */
+const USE_DEPTH_MAX = 16;
+
+/** The file as a tree of elements; unsafe content refused as it is met. */
+function svgTree(text: string): Node {
+	const top: Node = { name: '#document', attrs: {}, children: [] };
+	const stack: Node[] = [top];
 	let refusal: ImportRefusal | null = null;
-	let count = 0;
 	let styleText = '';
 	let inStyle = false;
 	const parser = new Parser(
@@ -101,50 +112,12 @@ export function svgImport(text: string): ImportedPiece[] {
 				refusal ??= svgRefusalOf({ declaration: data });
 			},
 			onopentag(rawName, attrs) {
-				if (refusal) return;
 				const name = rawName.toLowerCase().replace(/^svg:/, '');
-				refusal = svgRefusalOf({ element: name, attrs });
-				if (refusal) return;
+				refusal ??= svgRefusalOf({ element: name, attrs });
 				inStyle = name === 'style';
-				const parent = stack[stack.length - 1];
-				if (!root) {
-					if (name !== 'svg') {
-						refusal = new ImportRefusal(415, 'not_svg', 'The file is not an SVG: its root element is not <svg>.');
-						return;
-					}
-					root = true;
-					try {
-						stack.push({ matrix: matrixMultiply(rootMatrix(attrs), transformParse(attrs.transform)), role: 'none', group: -1 });
-					} catch (e) {
-						refusal = e instanceof ImportRefusal ? e : new ImportRefusal(422, 'units_unknown', String(e));
-					}
-					return;
-				}
-				if (!parent) return;
-				const matrix = matrixMultiply(parent.matrix, transformParse(attrs.transform));
-				const label = attrs.id ?? attrs['inkscape:label'] ?? '';
-				const role = svgRole(label) ?? parent.role;
-				let group = parent.group;
-				if (name === 'g' && /^piece-/.test(attrs.id ?? '')) {
-					group = groupNames.length;
-					const cut = attrs['data-cut'];
-					groupNames.push({ name: attrs['data-name'] ?? attrs['inkscape:label'] ?? '', cut: cut === 'pair' || cut === 'on_fold' ? cut : 'single' });
-				}
-				stack.push({ matrix, role, group });
-				const where = `<${name}${attrs.id ? ` id="${attrs.id}"` : ''}> (shape ${count + 1})`;
-				if (name === 'circle' || name === 'ellipse') {
-					count++;
-					shapes.push({ data: new SVGPathData(''), where, role, group, point: matrixApply(matrix, { x: num(attrs.cx), y: num(attrs.cy) }) });
-					return;
-				}
-				const data = shapeData(name, attrs);
-				if (!data) return;
-				count++;
-				try {
-					shapes.push({ data: data.matrix(...matrix), where, role, group });
-				} catch (e) {
-					refusal = new ImportRefusal(422, 'bad_path', `${where}: the path data cannot be read (${(e as Error).message}).`, where);
-				}
+				const node: Node = { name, attrs, children: [] };
+				stack[stack.length - 1].children.push(node);
+				stack.push(node);
 			},
 			ontext(t) {
 				if (inStyle) styleText += t;
@@ -155,7 +128,7 @@ export function svgImport(text: string): ImportedPiece[] {
 					inStyle = false;
 					refusal ??= svgRefusalOf({ css: styleText });
 				}
-				stack.pop();
+				if (stack.length > 1) stack.pop();
 			}
 		},
 		{ xmlMode: true, decodeEntities: true }
@@ -163,14 +136,89 @@ export function svgImport(text: string): ImportedPiece[] {
 	parser.write(text);
 	parser.end();
 	if (refusal) throw refusal;
-	if (!root) throw new ImportRefusal(415, 'not_svg', 'The file is not an SVG: no <svg> element was found.');
+	return top;
+}
+
+function idIndex(node: Node, index: Map<string, Node>): Map<string, Node> {
+	if (node.attrs.id && !index.has(node.attrs.id)) index.set(node.attrs.id, node);
+	for (const c of node.children) idIndex(c, index);
+	return index;
+}
+
+export function svgImport(text: string): ImportedPiece[] {
+	const svg = svgTree(text).children.find((n) => n.name !== '#text');
+	if (!svg) throw new ImportRefusal(415, 'not_svg', 'The file is not an SVG: no <svg> element was found.');
+	if (svg.name !== 'svg') throw new ImportRefusal(415, 'not_svg', 'The file is not an SVG: its root element is not <svg>.');
+	const ids = idIndex(svg, new Map());
+	const shapes: Shape[] = [];
+	const groupNames: { name: string; cut: ImportedPiece['cut'] }[] = [];
+	let count = 0;
+	interface Ctx {
+		matrix: Matrix;
+		role: ReturnType<typeof svgRole>;
+		group: number;
+		/** The <use> elements this element is shown through, outermost first. */
+		uses: string[];
+	}
+	const walk = (node: Node, parent: Ctx, shown = false) => {
+		const { name, attrs } = node;
+		if (NOT_DRAWN.has(name) && !shown) return;
+		const matrix = matrixMultiply(parent.matrix, transformParse(attrs.transform));
+		const label = attrs.id ?? attrs['inkscape:label'] ?? '';
+		const role = svgRole(label) ?? parent.role;
+		let group = parent.group;
+		if (name === 'g' && /^piece-/.test(attrs.id ?? '')) {
+			group = groupNames.length;
+			const cut = attrs['data-cut'];
+			groupNames.push({ name: attrs['data-name'] ?? attrs['inkscape:label'] ?? '', cut: cut === 'pair' || cut === 'on_fold' ? cut : 'single' });
+		}
+		const ctx: Ctx = { matrix, role, group, uses: parent.uses };
+		if (name === 'use') {
+			const ref = (attrs.href ?? attrs['xlink:href'] ?? '').trim();
+			const target = ids.get(ref.slice(1));
+			const where = `<use href="${ref.slice(0, 80)}">`;
+			if (!target) throw new ImportRefusal(422, 'svg_use_missing', `${where} refers to no element of the file.`, where);
+			if (parent.uses.length >= USE_DEPTH_MAX || parent.uses.includes(ref))
+				throw new ImportRefusal(422, 'svg_use_loop', `${where} shows itself, directly or through other <use> elements; such files are refused.`, where);
+			// the referenced element drawn at (x, y) in the use's own coordinates
+			const at = matrixMultiply(matrix, [1, 0, 0, 1, num(attrs.x), num(attrs.y)]);
+			walk(target, { ...ctx, matrix: at, uses: [...parent.uses, ref] }, true);
+			return;
+		}
+		const via = ctx.uses.length ? ` via <use href="${ctx.uses[ctx.uses.length - 1]}">` : '';
+		const where = `<${name}${attrs.id ? ` id="${attrs.id}"` : ''}> (shape ${count + 1})${via}`;
+		if (name === 'circle' || name === 'ellipse') {
+			count++;
+			shapes.push({ data: new SVGPathData(''), where, role, group, point: matrixApply(matrix, { x: num(attrs.cx), y: num(attrs.cy) }) });
+			return;
+		}
+		const data = shapeData(name, attrs);
+		if (data) {
+			count++;
+			try {
+				// horizontal and vertical lines made plain lines first: a turn would leave them neither
+				shapes.push({ data: data.toAbs().normalizeHVZ(false).matrix(...matrix), where, role, group });
+			} catch (e) {
+				throw new ImportRefusal(422, 'bad_path', `${where}: the path data cannot be read (${(e as Error).message}).`, where);
+			}
+			return;
+		}
+		for (const c of node.children) walk(c, ctx);
+	};
+	let root: Matrix;
+	try {
+		root = matrixMultiply(rootMatrix(svg.attrs), transformParse(svg.attrs.transform));
+	} catch (e) {
+		throw e instanceof ImportRefusal ? e : new ImportRefusal(422, 'units_unknown', String(e));
+	}
+	for (const c of svg.children) walk(c, { matrix: root, role: 'none', group: -1, uses: [] });
 	return piecesFromShapes(shapes, groupNames);
 }
 
 function piecesFromShapes(shapes: readonly Shape[], groupNames: readonly { name: string; cut: ImportedPiece['cut'] }[]): ImportedPiece[] {
 	const layered = shapes.some((s) => s.role === 'boundary');
 	const pieces: ImportedPiece[] = [];
-	const blank = { notches: [] as Vec[], internalLines: [] as Path[], drillHoles: [] as Vec[], fabric: 'self' };
+	const blank = { notches: [] as ImportedNotch[], internalLines: [] as Path[], drillHoles: [] as Vec[], fabric: 'self' };
 	for (const s of shapes) {
 		if (s.point || !(layered ? s.role === 'boundary' : s.role === 'none')) continue;
 		for (const sp of subpaths(s.data)) {
@@ -199,7 +247,7 @@ function piecesFromShapes(shapes: readonly Shape[], groupNames: readonly { name:
 				sewLine,
 				touchPoints: net,
 				grainline: g ? { from: g.p0, to: g.kind === 'line' ? g.p1 : g.p3 } : undefined,
-				notches: shapes.filter((x) => inGroup(x) && x.role === 'notches' && x.point).map((x) => x.point!),
+				notches: shapes.filter((x) => inGroup(x) && x.role === 'notches' && x.point).map((x) => ({ at: x.point!, count: 1 as const })),
 				internalLines: shapes.filter((x) => inGroup(x) && x.role === 'internal').flatMap((x) => subpaths(x.data).map((q) => ({ segments: q.segments })))
 			});
 		}
