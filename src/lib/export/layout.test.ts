@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { rectsOverlap, shelfPack } from './pack';
+import { rectsOverlap, shelfPack, type PackItem, type Packed } from './pack';
+import { pageAwarePack, skylinePack } from './skyline';
 import { PRINT_MARGIN_MM, TILE_OVERLAP_MM } from './paper';
 import { rowLetter, sheetTiling, tileJoins } from './tiles';
 import { demoPrintPieces } from './test-support/demo-pieces';
@@ -18,6 +19,32 @@ describe('shelf packing', () => {
 				}
 			})
 		);
+	});
+});
+
+const itemsArb = fc.array(fc.record({ widthMm: fc.double({ min: 1, max: 400, noNaN: true }), heightMm: fc.double({ min: 1, max: 900, noNaN: true }) }), { maxLength: 30 });
+function expectApartWithin(items: readonly PackItem[], packed: Packed, strip: number, gap: number) {
+	const rects = items.map((it, i) => ({ x: packed.at[i].x, y: packed.at[i].y, w: it.widthMm + gap - 1e-9, h: it.heightMm + gap - 1e-9 }));
+	for (let i = 0; i < rects.length; i++) {
+		expect(rects[i].x).toBeGreaterThanOrEqual(0);
+		expect(rects[i].y).toBeGreaterThanOrEqual(0);
+		if (items[i].widthMm <= strip) expect(rects[i].x + items[i].widthMm).toBeLessThanOrEqual(strip + 1e-9);
+		for (let j = i + 1; j < rects.length; j++) expect(rectsOverlap(rects[i], rects[j])).toBe(false);
+	}
+	expect(packed.widthMm).toBeGreaterThanOrEqual(Math.max(0, ...items.map((it, i) => packed.at[i].x + it.widthMm)) - 1e-9);
+	expect(packed.heightMm).toBeGreaterThanOrEqual(Math.max(0, ...items.map((it, i) => packed.at[i].y + it.heightMm)) - 1e-9);
+}
+
+describe('skyline packing', () => {
+	it('keeps the gap between every two pieces and stays within the strip (tallest, widest or largest first)', () => {
+		for (const by of ['height', 'width', 'area'] as const) {
+			fc.assert(fc.property(itemsArb, (items) => expectApartWithin(items, skylinePack(items, 500, 10, by), 500, 10)), { numRuns: 60 });
+		}
+	});
+
+	it('counting pages, keeps the gap between every two pieces and stays within the strip', () => {
+		const grid = { stepXMm: 178, stepYMm: 265, pageWidthMm: 190, pageHeightMm: 277 };
+		fc.assert(fc.property(itemsArb, (items) => expectApartWithin(items, pageAwarePack(items, 544, 10, grid), 544, 10)), { numRuns: 60 });
 	});
 });
 
@@ -61,6 +88,25 @@ describe('print layout', () => {
 		expect(once.placed).toHaveLength(pieces.length);
 		for (const s of [both, once]) {
 			for (let i = 0; i < s.placed.length; i++) for (let j = i + 1; j < s.placed.length; j++) expect(rectsOverlap(s.placed[i].rect, s.placed[j].rect)).toBe(false);
+		}
+		// the other half of a pair lies beside its first half, at the same height
+		for (const m of both.placed.filter((p) => p.mirrored)) {
+			const first = both.placed.find((p) => p.pieceId === m.pieceId && !p.mirrored)!;
+			expect(m.rect.y).toBe(first.rect.y);
+			expect(m.rect.x).toBeGreaterThan(first.rect.x + first.rect.w);
+		}
+	});
+
+	it('prints no more A4 pages than shelf packing the pieces on the narrowest strip would', () => {
+		const pieces = demoPrintPieces();
+		for (const pairs of ['both', 'once'] as const) {
+			const s = printSheet(pieces, { paper: 'a4', allowanceShown: true, pairs }, 't');
+			const sizes = s.placed.map((p) => ({ widthMm: p.rect.w, heightMm: p.rect.h }));
+			const step = 210 - 2 * PRINT_MARGIN_MM - TILE_OVERLAP_MM;
+			const strip = Math.max(1, Math.ceil((Math.max(...sizes.map((x) => x.widthMm)) - TILE_OVERLAP_MM) / step)) * step + TILE_OVERLAP_MM;
+			const shelf = shelfPack(sizes, strip, 10);
+			const shelfPages = sheetTiling('a4', shelf.widthMm, shelf.heightMm, sizes.map((z, i) => ({ x: shelf.at[i].x, y: shelf.at[i].y, w: z.widthMm, h: z.heightMm }))).tiles.filter((t) => !t.blank).length;
+			expect(s.tiling.tiles.filter((t) => !t.blank).length).toBeLessThanOrEqual(shelfPages);
 		}
 	});
 });

@@ -1,6 +1,8 @@
 import type { Piece } from '$lib/pattern/piece-schema';
 import { drawingBoundingBox, drawingTranslate, polyline, rectPath, type DrawItem } from './drawing';
+import { drawingInkRects } from './drawing-ink';
 import { shelfPack } from './pack';
+import { tiledLayout } from './sheet-layout';
 import { PAPERS, PIECE_GAP_MM, PRINT_CAUTION_LINES, TILE_OVERLAP_MM, type PaperKey } from './paper';
 import { pieceAsPrinted, pieceDrawing, pieceLabelLines, pieceMirrored, type PieceLabelMeta } from './piece-drawing';
 import { printableWidthMm, sheetTiling, type Rect, type Tiling } from './tiles';
@@ -79,28 +81,30 @@ export function printSheet(pieces: readonly PrintPieceInput[], options: PrintOpt
 	if (large) drawings.unshift({ name: '', pieceId: '', mirrored: false, items: infoBlock(title) });
 	const boxes = drawings.map((d) => drawingBoundingBox(d.items));
 	const sizes = boxes.map((b) => ({ widthMm: b.maxX - b.minX, heightMm: b.maxY - b.minY }));
-	let strip: number;
-	if (large) strip = printableWidthMm(options.paper);
+	// where each drawing has ink, from its box's top-left corner: pages none of it reaches are not printed
+	const ink = drawings.map((d, i) => drawingInkRects(d.items).map((r) => ({ ...r, x: r.x - boxes[i].minX, y: r.y - boxes[i].minY })));
+	const inkAt = (at: readonly { x: number; y: number }[]) => ink.flatMap((rs, i) => rs.map((r) => ({ ...r, x: r.x + at[i].x, y: r.y + at[i].y })));
+	let packed: { at: readonly { x: number; y: number }[]; widthMm: number; heightMm: number };
+	if (large) packed = shelfPack(sizes, Math.max(printableWidthMm(options.paper), ...sizes.map((s) => s.widthMm)), PIECE_GAP_MM, true);
 	else {
-		const area = sizes.reduce((t, s) => t + (s.widthMm + PIECE_GAP_MM) * (s.heightMm + PIECE_GAP_MM), 0);
-		const widest = Math.max(0, ...sizes.map((s) => s.widthMm));
-		const step = printableWidthMm(options.paper) - TILE_OVERLAP_MM;
-		const cols = Math.max(1, Math.ceil((Math.max(widest, Math.sqrt(area) * 1.15) - TILE_OVERLAP_MM) / step));
-		strip = cols * step + TILE_OVERLAP_MM;
+		// both halves of a pair side by side, as one unit
+		const units: number[][] = [];
+		drawings.forEach((d, i) => {
+			if (d.mirrored && units.length && drawings[units[units.length - 1][0]].pieceId === d.pieceId) units[units.length - 1].push(i);
+			else units.push([i]);
+		});
+		packed = tiledLayout(sizes, units, options.paper, inkAt);
 	}
-	strip = Math.max(strip, ...sizes.map((s) => s.widthMm));
-	const packed = shelfPack(sizes, strip, PIECE_GAP_MM, large);
 	const items: DrawItem[] = [];
 	const placed: PlacedPiece[] = [];
-	const filled: Rect[] = [];
 	drawings.forEach((d, i) => {
 		const b = boxes[i];
 		const offset = { x: packed.at[i].x - b.minX, y: packed.at[i].y - b.minY };
 		items.push(...drawingTranslate(d.items, offset.x, offset.y));
 		const rect = { x: packed.at[i].x, y: packed.at[i].y, w: sizes[i].widthMm, h: sizes[i].heightMm };
-		filled.push(rect);
 		if (d.pieceId) placed.push({ name: d.name, pieceId: d.pieceId, mirrored: d.mirrored, rect, offset });
 	});
+	const filled: Rect[] = inkAt(packed.at);
 	const tiling = sheetTiling(options.paper, packed.widthMm, packed.heightMm, filled);
 	for (const m of tiling.marks) items.push(...alignmentMark(m.x, m.y));
 	return { title, widthMm: packed.widthMm, heightMm: packed.heightMm, items, placed, tiling, infoOnSheet: large };
