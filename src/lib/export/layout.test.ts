@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { rectsOverlap, shelfPack, type PackItem, type Packed } from './pack';
 import { pageAwarePack, skylinePack } from './skyline';
-import { PRINT_MARGIN_MM, TILE_OVERLAP_MM } from './paper';
+import { PIECE_GAP_MM, PRINT_MARGIN_MM, TILE_OVERLAP_MM } from './paper';
 import { rowLetter, sheetTiling, tileJoins } from './tiles';
 import { demoPrintPieces } from './test-support/demo-pieces';
 import { printSheet } from './print-sheet';
@@ -104,7 +104,7 @@ describe('print layout', () => {
 			const sizes = s.placed.map((p) => ({ widthMm: p.rect.w, heightMm: p.rect.h }));
 			const step = 210 - 2 * PRINT_MARGIN_MM - TILE_OVERLAP_MM;
 			const strip = Math.max(1, Math.ceil((Math.max(...sizes.map((x) => x.widthMm)) - TILE_OVERLAP_MM) / step)) * step + TILE_OVERLAP_MM;
-			const shelf = shelfPack(sizes, strip, 10);
+			const shelf = shelfPack(sizes, strip, PIECE_GAP_MM);
 			const shelfPages = sheetTiling('a4', shelf.widthMm, shelf.heightMm, sizes.map((z, i) => ({ x: shelf.at[i].x, y: shelf.at[i].y, w: z.widthMm, h: z.heightMm }))).tiles.filter((t) => !t.blank).length;
 			expect(s.tiling.tiles.filter((t) => !t.blank).length).toBeLessThanOrEqual(shelfPages);
 		}

@@ -86,8 +86,13 @@ function pathOperators(items: readonly DrawItem[], at: Placement, color = INK): 
 	return ops;
 }
 
+/** Operators pushed in slices: one spread of a large sheet's operators would overflow the call stack. */
+function pushAll(page: PDFPage, ops: readonly PDFOperator[]) {
+	for (let i = 0; i < ops.length; i += 8192) page.pushOperators(...ops.slice(i, i + 8192));
+}
+
 function drawItems(page: PDFPage, items: readonly DrawItem[], fonts: Fonts, at: Placement, color = INK) {
-	page.pushOperators(...pathOperators(items, at, color));
+	pushAll(page, pathOperators(items, at, color));
 	for (const it of items) {
 		if (it.kind !== 'text') continue;
 		const size = it.sizeMm * k * (at.textScale ?? at.s / k);
@@ -135,7 +140,7 @@ function coverPage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, f
 			{ x: x0, y: y0 + stepY }
 		];
 		const segments = corners.map((p, i) => ({ kind: 'line' as const, p0: p, p1: corners[(i + 1) % 4] }));
-		page.pushOperators(...pathOperators([{ ...rect, segments }], at));
+		pushAll(page, pathOperators([{ ...rect, segments }], at));
 		if (!tile.blank) {
 			textDraw(page, fonts, tile.code, { x: at.ox + at.s * (x0 + stepX / 2) - 8, y: at.oy - at.s * (y0 + stepY / 2) - 5, size: 14, bold: true, color: INK });
 		}
@@ -170,7 +175,7 @@ function tilePage(doc: PDFDocument, sheet: PrintSheet, form: PDFEmbeddedPage, in
 	if (tile.row > 0) edges.push(line([0, 0], [w, 0], 'trim'));
 	if (tile.col + 1 < t.cols) edges.push(line([w - t.overlapMm, 0], [w - t.overlapMm, h], 'overlap'));
 	if (tile.row + 1 < t.rows) edges.push(line([0, h - t.overlapMm], [w, h - t.overlapMm], 'overlap'));
-	page.pushOperators(...pathOperators(edges, { ox: m * k, oy: H - m * k, s: k }));
+	pushAll(page, pathOperators(edges, { ox: m * k, oy: H - m * k, s: k }));
 	text(page, fonts, tile.code, m, m - 2.5, 14, true);
 	const joins = tileJoins(t, tile);
 	text(page, fonts, `${sheet.title} · page ${tile.code}${joins ? ` · joins ${joins}` : ''} · print at 100 %`, m + 14, m - 2.5, 7);

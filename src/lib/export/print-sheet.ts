@@ -93,7 +93,7 @@ export function printSheet(pieces: readonly PrintPieceInput[], options: PrintOpt
 			if (d.mirrored && units.length && drawings[units[units.length - 1][0]].pieceId === d.pieceId) units[units.length - 1].push(i);
 			else units.push([i]);
 		});
-		packed = tiledLayout(sizes, units, options.paper, inkAt);
+		packed = tiledLayout(sizes, units, options.paper, ink);
 	}
 	const items: DrawItem[] = [];
 	const placed: PlacedPiece[] = [];

@@ -1,12 +1,14 @@
 import { shelfPack, type PackItem, type Packed } from './pack';
 import { PAPERS, PIECE_GAP_MM, PRINT_MARGIN_MM, TILE_OVERLAP_MM, type PaperKey } from './paper';
 import { pageAwarePack, skylinePack, type PackOrder } from './skyline';
-import { printableWidthMm, sheetTiling, type Rect } from './tiles';
+import { pageGridSteps, pagesTouched, printableWidthMm, type Rect } from './tiles';
 
 /**
  * Where the drawings go on a sheet that small paper tiles: the layout that prints the fewest pages among
- * shelf and skyline packing on strips of one to a few page widths. Both halves of a pair are packed as
- * one unit, side by side. Nothing is turned: grainlines keep their direction on the paper. Pure.
+ * shelf and skyline packing on strips of one to a few page widths. Both halves of a pair are packed as one
+ * unit, side by side (packed apart, the demo style would take 24 A4 pages instead of 27). Nothing is
+ * turned: grainlines keep their direction on the paper. Pages are counted by where the drawings have ink
+ * (`ink`: each drawing's rectangles from its box's top-left corner). Pure.
  */
 export interface SheetLayout extends Packed {
 	/** Pages printed (tiles some drawing falls on). */
@@ -20,7 +22,17 @@ const PACKERS = ['shelf', 'skyline-height', 'skyline-width', 'skyline-area', 'pa
 /** How many more page widths than the least are tried. */
 const EXTRA_COLUMNS = 4;
 
-export function tiledLayout(sizes: readonly PackItem[], units: readonly (readonly number[])[], paper: PaperKey, filledOf: (at: Packed['at']) => Rect[]): SheetLayout {
+/** Pages printed: those some ink rectangle (drawing i's, from its box corner) reaches, placed at `at`. */
+function pagesPrinted(paper: PaperKey, packed: Packed, ink: readonly (readonly Rect[])[]): number {
+	const grid = pageGridSteps(paper, packed.widthMm, packed.heightMm);
+	const touched = new Set<number>();
+	ink.forEach((rects, i) => {
+		for (const r of rects) pagesTouched(r, packed.at[i].x, packed.at[i].y, grid, touched);
+	});
+	return touched.size;
+}
+
+export function tiledLayout(sizes: readonly PackItem[], units: readonly (readonly number[])[], paper: PaperKey, ink: readonly (readonly Rect[])[]): SheetLayout {
 	const gap = PIECE_GAP_MM;
 	const unitSizes = units.map((u) => ({
 		widthMm: u.reduce((t, i) => t + sizes[i].widthMm, 0) + gap * (u.length - 1),
@@ -49,8 +61,7 @@ export function tiledLayout(sizes: readonly PackItem[], units: readonly (readonl
 					x += sizes[i].widthMm + gap;
 				}
 			});
-			const tiling = sheetTiling(paper, packed.widthMm, packed.heightMm, filledOf(at));
-			const pages = tiling.tiles.filter((t) => !t.blank).length;
+			const pages = pagesPrinted(paper, { at, widthMm: packed.widthMm, heightMm: packed.heightMm }, ink);
 			const area = packed.widthMm * packed.heightMm;
 			if (!best || pages < best.pages || (pages === best.pages && area < best.widthMm * best.heightMm - 1e-6)) {
 				best = { at, widthMm: packed.widthMm, heightMm: packed.heightMm, pages, packer, stripWidthMm: strip };

@@ -64,6 +64,39 @@ export function printableWidthMm(paper: PaperKey): number {
 	return PAPERS[paper].widthMm - 2 * PRINT_MARGIN_MM;
 }
 
+/** The page grid of a tiling: pages start every sx, sy and print pw × ph. */
+export interface PageGridSteps {
+	readonly sx: number;
+	readonly sy: number;
+	readonly pw: number;
+	readonly ph: number;
+	readonly cols: number;
+	readonly rows: number;
+}
+
+/**
+ * Adds to `into` the pages (row · cols + col) that rectangle f, moved by (dx, dy), reaches: page (c, r)
+ * prints the region (c·sx, r·sy, pw, ph), which meets f when c·sx < f.x + f.w and f.x < c·sx + pw.
+ */
+export function pagesTouched(f: Rect, dx: number, dy: number, g: PageGridSteps, into: Set<number>) {
+	const x = f.x + dx;
+	const y = f.y + dy;
+	const c0 = Math.max(0, Math.floor((x - g.pw) / g.sx) + 1);
+	const c1 = Math.min(g.cols - 1, Math.ceil((x + f.w) / g.sx) - 1);
+	const r0 = Math.max(0, Math.floor((y - g.ph) / g.sy) + 1);
+	const r1 = Math.min(g.rows - 1, Math.ceil((y + f.h) / g.sy) - 1);
+	for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) into.add(r * g.cols + c);
+}
+
+/** The page grid small paper cuts a sheet of this size into. */
+export function pageGridSteps(paper: PaperKey, sheetWidthMm: number, sheetHeightMm: number): PageGridSteps {
+	const pw = PAPERS[paper].widthMm - 2 * PRINT_MARGIN_MM;
+	const ph = PAPERS[paper].heightMm - 2 * PRINT_MARGIN_MM;
+	const sx = pw - TILE_OVERLAP_MM;
+	const sy = ph - TILE_OVERLAP_MM;
+	return { sx, sy, pw, ph, cols: Math.max(1, Math.ceil((sheetWidthMm - TILE_OVERLAP_MM) / sx)), rows: Math.max(1, Math.ceil((sheetHeightMm - TILE_OVERLAP_MM) / sy)) };
+}
+
 export function sheetTiling(paper: PaperKey, sheetWidthMm: number, sheetHeightMm: number, filled: readonly Rect[]): Tiling {
 	const p = PAPERS[paper];
 	const margin = PRINT_MARGIN_MM;
@@ -80,12 +113,12 @@ export function sheetTiling(paper: PaperKey, sheetWidthMm: number, sheetHeightMm
 	const sy = ph - overlap;
 	const cols = Math.max(1, Math.ceil((sheetWidthMm - overlap) / sx));
 	const rows = Math.max(1, Math.ceil((sheetHeightMm - overlap) / sy));
+	const touched = new Set<number>();
+	for (const f of filled) pagesTouched(f, 0, 0, { sx, sy, pw, ph, cols, rows }, touched);
 	const tiles: Tile[] = [];
 	for (let r = 0; r < rows; r++) {
 		for (let c = 0; c < cols; c++) {
-			const region = { x: c * sx, y: r * sy, w: pw, h: ph };
-			const blank = !filled.some((f) => f.x < region.x + region.w && region.x < f.x + f.w && f.y < region.y + region.h && region.y < f.y + f.h);
-			tiles.push({ row: r, col: c, code: tileCode(r, c), x: region.x, y: region.y, widthMm: pw, heightMm: ph, blank });
+			tiles.push({ row: r, col: c, code: tileCode(r, c), x: c * sx, y: r * sy, widthMm: pw, heightMm: ph, blank: !touched.has(r * cols + c) });
 		}
 	}
 	if (paper === 'roll914') {
