@@ -8,7 +8,8 @@ import { piecesOfStyle } from '../../src/lib/server/repositories/pieces';
 import { styleChangesOfStyle } from '../../src/lib/server/repositories/style-changes';
 import { stylesOfStudio } from '../../src/lib/server/repositories/styles';
 import { usersByEmail } from '../../src/lib/server/repositories/users';
-import { versionsById, versionsOfPiece } from '../../src/lib/server/repositories/versions';
+import { versionsById, versionsGeometryOfStyle, versionsMarkingsSet, versionsOfPiece } from '../../src/lib/server/repositories/versions';
+import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
 import { startApp, type RunningApp } from './app-server';
 import { sessionClient, testDb, testDbClose, throttleAddressReset } from './helpers';
@@ -53,6 +54,23 @@ describe('demo style: Juniper corset bodice', () => {
 		await demoStudioSeed(testDb());
 		expect(await demoStyles()).toHaveLength(1);
 		expect(await count()).toEqual(before);
+	});
+
+	it('fills in the pressing directions and the centre front mark of a demo style seeded before them, changing nothing else', async () => {
+		const [style] = await demoStyles();
+		const stored = await versionsGeometryOfStyle(testDb(), style.id);
+		const withDarts = stored.filter((v) => (v.geometry as Piece).darts.length > 0);
+		expect(withDarts.length).toBeGreaterThan(0);
+		// as an earlier seed stored them: no pressing direction, no CF mark on the panels and the upper front
+		for (const v of stored) {
+			const g = v.geometry as Piece;
+			await versionsMarkingsSet(testDb(), v.id, { ...g, darts: g.darts.map(({ pressToward: _, ...d }) => d), labels: g.labels.filter((l) => !(l.id === 'centre' && l.text === 'CF' && !g.foldLine && g.cut === 'pair')) });
+		}
+		await demoStudioSeed(testDb());
+		const after = await versionsGeometryOfStyle(testDb(), style.id);
+		expect(after.map((v) => v.id)).toEqual(stored.map((v) => v.id));
+		after.forEach((v, i) => expect(v.geometry, `${v.pieceName} v${v.number}`).toEqual(stored[i].geometry));
+		for (const v of after) for (const d of (v.geometry as Piece).darts) expect(d.pressToward, `${v.pieceName} v${v.number} ${d.id}`).toBeDefined();
 	});
 
 	it('has the expected pieces and versions, in order, drafted from the studio\'s ASTM D5585 curvy 10 chart set', async () => {

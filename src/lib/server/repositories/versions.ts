@@ -129,3 +129,23 @@ export async function versionsGeometry(db: DbOrTx, pieceId: string, versionId: s
 		.executeTakeFirst();
 	return row?.geometry;
 }
+
+/** Every version of a style's pieces with its geometry, by piece name and number (the demo seed's refresh). */
+export async function versionsGeometryOfStyle(db: DbOrTx, styleId: string): Promise<{ id: string; pieceName: string; number: number; geometry: unknown }[]> {
+	return db
+		.selectFrom('piece_versions')
+		.innerJoin('pieces', 'pieces.id', 'piece_versions.piece_id')
+		.select(['piece_versions.id as id', 'pieces.name as pieceName', 'piece_versions.number as number', 'piece_versions.geometry as geometry'])
+		.where('pieces.style_id', '=', styleId)
+		.orderBy('pieces.name')
+		.orderBy('piece_versions.number')
+		.execute();
+}
+
+/**
+ * Replaces a stored version's geometry. Only for markings that no replay or check reads (the demo seed's
+ * refresh of pressing directions and centre marks); a change of shape is always a new version.
+ */
+export async function versionsMarkingsSet(db: DbOrTx, versionId: string, geometry: unknown): Promise<void> {
+	await db.updateTable('piece_versions').set({ geometry: JSON.stringify(geometry) }).where('id', '=', versionId).execute();
+}

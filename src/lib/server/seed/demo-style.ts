@@ -8,6 +8,7 @@ import { changeSave } from '../changes/save';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { versionSave, type SaveOutcome } from '../versions/save';
 import { versionStateChange } from '../versions/state';
+import { demoStyleMarkingsRefresh } from './demo-style-markings';
 
 export interface DemoStyleAuthors {
 	/** Drafts and saves every version. */
@@ -34,13 +35,17 @@ function refusal(what: string, r: Extract<SaveOutcome, { ok: false }>): Error {
  * the pure demo path ($lib/pattern/fixtures/demo-path.ts), stored through the same server functions as
  * the API, so each version is verified on the server (its recipe replayed on the previous version, the
  * shaping checks run) before it is stored; the band and the upper front come from one style change,
- * recomputed by the server from the drafted panels (the change endpoint's own path). Idempotent: nothing is done when the studio already has a
- * style with this code. All or nothing: if any version is refused, the new style is removed again.
+ * recomputed by the server from the drafted panels (the change endpoint's own path). Idempotent: when the studio already has a
+ * style with this code, only the markings added since it was seeded are filled in (demo-style-markings.ts). All or nothing: if any version is refused, the new style is removed again.
  * Takes `db` (not a transaction): versionSave opens its own transactions.
  */
 export async function demoStyleSeed(db: Db, studioId: string, authors: DemoStyleAuthors): Promise<DemoStyleSeedResult> {
 	const existing = (await stylesOfStudio(db, studioId)).find((s) => s.code === DEMO_STYLE.code);
-	if (existing) return { styleId: existing.id, created: false, pieces: [] };
+	if (existing) {
+		// seeded by an earlier version: the markings added since (pressing directions, centre mark) are filled in
+		await demoStyleMarkingsRefresh(db, existing.id);
+		return { styleId: existing.id, created: false, pieces: [] };
+	}
 
 	await measurementChartsEnsure(db, studioId);
 	const set = (await measurementSetsOfStudio(db, studioId)).find((s) => s.chartKey === DEMO_CHART.chartKey);
