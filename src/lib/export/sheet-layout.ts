@@ -6,7 +6,7 @@ import { pageGridSteps, pagesTouched, printableWidthMm, type Rect } from './tile
 /**
  * Where the drawings go on a sheet that small paper tiles: the layout that prints the fewest pages among
  * shelf and skyline packing on strips of one to a few page widths. Both halves of a pair are packed as one
- * unit, side by side (packed apart, the demo style would take 24 A4 pages instead of 27). Nothing is
+ * unit, side by side (packed apart, the demo style would take 26 A4 pages instead of 27). Nothing is
  * turned: grainlines keep their direction on the paper. Pages are counted by where the drawings have ink
  * (`ink`: each drawing's rectangles from its box's top-left corner). Pure.
  */
