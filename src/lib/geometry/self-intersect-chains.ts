@@ -292,9 +292,7 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	}
 	// pairs of chains whose boxes meet (a sweep along a over the chains in order of lo), each compared by a
 	// merge along a
-	const byLo = new Int32Array(count);
-	for (let c = 0; c < count; c++) byLo[c] = c;
-	byLo.sort((x, y) => ch.lo[x] - ch.lo[y]);
+	const byLo = indicesByKey(ch.lo);
 	for (let a = 0; a < count; a++) {
 		const A = byLo[a];
 		const hiA = ch.hi[A], crossLoA = ch.crossLo[A], crossHiA = ch.crossHi[A];
@@ -309,6 +307,44 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 		}
 	}
 	return found.pairs(m === segs.length);
+}
+
+/**
+ * Indices 0 … n − 1 in increasing order of key (ties in index order): an insertion sort into runs of
+ * 16 and bottom-up merges, on typed arrays (a comparator callback costs more than the sort here).
+ */
+export function indicesByKey(key: Float64Array): Int32Array {
+	const n = key.length;
+	let a = new Int32Array(n);
+	let b = new Int32Array(n);
+	for (let i = 0; i < n; i++) a[i] = i;
+	const RUN = 16;
+	for (let lo = 0; lo < n; lo += RUN) {
+		const hi = Math.min(n, lo + RUN);
+		for (let i = lo + 1; i < hi; i++) {
+			const v = a[i];
+			const kv = key[v];
+			let j = i - 1;
+			while (j >= lo && key[a[j]] > kv) {
+				a[j + 1] = a[j];
+				j--;
+			}
+			a[j + 1] = v;
+		}
+	}
+	for (let width = RUN; width < n; width *= 2) {
+		for (let lo = 0; lo < n; lo += 2 * width) {
+			const mid = Math.min(n, lo + width), hi = Math.min(n, lo + 2 * width);
+			let i = lo, j = mid, o = lo;
+			while (i < mid && j < hi) b[o++] = key[a[j]] < key[a[i]] ? a[j++] : a[i++];
+			while (i < mid) b[o++] = a[i++];
+			while (j < hi) b[o++] = a[j++];
+		}
+		const t = a;
+		a = b;
+		b = t;
+	}
+	return a;
 }
 
 /** First index k in from … to − 1 with upHi[k] ≥ v (upHi is in order along a chain), or to. */
