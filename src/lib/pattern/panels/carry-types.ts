@@ -3,6 +3,7 @@ import type { LedgerEntry } from '../ledger';
 import type { OperationReport } from '../operation-result';
 import type { Piece } from '../piece-schema';
 import type { PanelFailure, SeamPair } from './panel-types';
+import type { LegWalk } from './carry-walk';
 
 /** What carry takes and gives (carry.ts). */
 
@@ -14,6 +15,11 @@ export interface CarryParams {
 	readonly pieceId?: string;
 	readonly name?: string;
 	readonly styleSeamId?: string;
+	/**
+	 * Walk the legs of every wedge the style line crosses to one length before closing it (carry-walk.ts);
+	 * on unless false.
+	 */
+	readonly walkLegs?: boolean;
 }
 
 export interface CarryPlacement {
@@ -61,6 +67,10 @@ export type CarryResult =
 			readonly seams: readonly CarrySeam[];
 			readonly residuals: readonly CarryResidual[];
 			readonly reachLine: Path;
+			/** The style line as cut: as drawn, bent where wedge legs were walked equal. */
+			readonly styleLine: Path;
+			/** Every panel seam whose wedge the line crosses: where its legs were cut, walked or not. */
+			readonly legWalks: readonly LegWalk[];
 			/**
 			 * Where each panel's part on the chosen side was laid in the joined piece: a rigid turn by angleRad
 			 * followed by a shift, p ↦ R(angleRad)·p + (dxMm, dyMm), in the order the panels were given (panel 0

@@ -9,6 +9,7 @@ import { pieceProblems } from './piece-tools';
 import { cutPanels, noMove, placementOf } from './carry-parts';
 import { carryAcrossSeam, type CarryState } from './carry-seam';
 import type { CarryParams, CarryResult } from './carry-types';
+import { styleLineWalkedEqual } from './carry-walk';
 
 export type { CarryParams, CarryPlacement, CarryResidual, CarryResult, CarrySeam, SeamOutcome } from './carry-types';
 
@@ -40,9 +41,14 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 	}
 	const residualAs = params.residualAs ?? 'dart';
 	const styleSeamId = params.styleSeamId ?? 'style-seam';
-	const line = params.styleLine;
-	if (outlineSelfIntersections(line, false).length > 0) {
+	if (outlineSelfIntersections(params.styleLine, false).length > 0) {
 		return panelRefuse('invalid_params', 'The style line crosses itself; draw it as one clean stroke across the panels.');
+	}
+	// 0. walk every crossed wedge's legs equal, unless asked to cut them as drawn
+	const walked = params.walkLegs === false ? { line: params.styleLine, walks: [] } : styleLineWalkedEqual(panels, seams, params.styleLine);
+	const line = walked.line;
+	if (line !== params.styleLine && outlineSelfIntersections(line, false).length > 0) {
+		return panelRefuse('invalid_params', 'Walking the wedge legs equal would make the style line cross itself; draw it further from the divergence points.');
 	}
 	// 1. cut every panel along the style line
 	const parts = cutPanels(panels, line, params.fuse);
@@ -58,7 +64,9 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 		reach: [pathFirst(line)],
 		styleSeamEdges: [parts[0].cut],
 		placements: [placementOf(panels[0].id, noMove)],
-		notes: []
+		notes: walked.walks
+			.filter((w) => w.walkedMm !== w.drawnMm[0])
+			.map((w) => `Seam "${w.seamId}": the style line crossed the wedge's legs ${w.drawnMm[0].toFixed(1)} mm and ${w.drawnMm[1].toFixed(1)} mm from the divergence point; both were walked to ${w.walkedMm.toFixed(1)} mm so the closed wedge leaves no step in the seam.`)
 	};
 	const ctx = { panels, seams, parts, line, residualAs, styleSeamId };
 	for (let k = 0; k < seams.length; k++) {
@@ -92,6 +100,8 @@ export function carry(panels: readonly Piece[], seams: readonly SeamPair[], para
 		seams: carrySeams,
 		residuals,
 		reachLine: pathFromPolyline(reach),
+		styleLine: line,
+		legWalks: walked.walks,
 		placements,
 		styleSeamEdges,
 		styleSeamLengthMm,

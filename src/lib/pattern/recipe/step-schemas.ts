@@ -83,5 +83,6 @@ export const carryParamsSchema = z.object({
 	residualAs: z.enum(['dart', 'pleats']).optional(),
 	pieceId: id.optional(),
 	name: label.min(1).optional(),
-	styleSeamId: id.optional()
+	styleSeamId: id.optional(),
+	walkLegs: z.boolean().optional()
 });
