@@ -41,4 +41,15 @@ describe('seams checked one by one', () => {
 		];
 		expect(shapingChecks(before, after, entries).every((c) => c.passed)).toBe(true);
 	});
+
+	it('refuse two seams changed by 20 mm each way when only 3 mm of change is declared', () => {
+		const far: PieceMetrics = {
+			...before,
+			seams: before.seams.map((s, i) => (i === 0 ? { ...s, lengthMm: s.lengthMm + 20 } : i === 1 ? { ...s, lengthMm: s.lengthMm - 20 } : s))
+		};
+		const entries = [ledgerEntry({ apexId: null, kind: 'removed_ease', refId: 'seam:0', label: 'added ease', angleRad: 0, lengthMm: 3 }), ledgerEntry({ apexId: null, kind: 'removed_ease', refId: 'seam:1', label: 'removed ease', angleRad: 0, lengthMm: -3 })];
+		const check = shapingChecks(before, far, entries).find((c) => c.code === 'seam_lengths_each');
+		expect(check?.passed).toBe(false);
+		expect(check?.message).toMatch(/declared changes account for 6\.00 mm/);
+	});
 });
