@@ -1,11 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { ChainHit } from './intersect';
 import { outlineFromPolyline, pathFromPolyline } from './path';
 import { outlineSelfIntersections, outlineSelfIntersectionsByAllPairs, outlineSelfIntersectionsByGrid } from './self-intersect';
 import { monotoneChainPairs } from './self-intersect-chains';
 import { touchReach } from './curve-curve';
 import { arbOutline } from './test-support/arbitraries';
+import { arbCoarseGridSegments, gridVertex, hitsCanonical } from './test-support/self-intersect-cases';
 import type { Segment, SegmentChain, Vec } from './types';
 
 /**
@@ -16,15 +16,10 @@ import type { Segment, SegmentChain, Vec } from './types';
  * corners, zero-width spikes), star-sorted simple polygons, and mixed lines and cubics, closed and open.
  */
 
-const canonical = (hits: readonly ChainHit[]) =>
-	hits
-		.map((h) => [h.segmentIndex, h.otherSegmentIndex, h.t, h.otherT, h.point.x, h.point.y])
-		.sort((a, b) => a[0] - b[0] || a[1] - b[1] || a[2] - b[2] || a[3] - b[3]);
-
 function expectSameAsBruteForce(chain: SegmentChain, closed = true): void {
-	const brute = canonical(outlineSelfIntersectionsByAllPairs(chain, closed));
-	expect(canonical(outlineSelfIntersections(chain, closed))).toEqual(brute);
-	expect(canonical(outlineSelfIntersectionsByGrid(chain, closed))).toEqual(brute);
+	const brute = hitsCanonical(outlineSelfIntersectionsByAllPairs(chain, closed));
+	expect(hitsCanonical(outlineSelfIntersections(chain, closed))).toEqual(brute);
+	expect(hitsCanonical(outlineSelfIntersectionsByGrid(chain, closed))).toEqual(brute);
 }
 
 /** Points with repeats (and a repeated closing point) dropped. */
@@ -37,8 +32,6 @@ function distinct(pts: readonly Vec[]): Vec[] {
 	while (out.length > 1 && out[0].x === out[out.length - 1].x && out[0].y === out[out.length - 1].y) out.pop();
 	return out;
 }
-
-const gridVertex = (max: number) => fc.record({ x: fc.integer({ min: 0, max }), y: fc.integer({ min: 0, max }) });
 
 describe('self-crossing search against brute force (every pair of segments)', () => {
 	it('gives exactly the brute-force crossings on small random outlines of lines and cubics', () => {
@@ -75,19 +68,8 @@ describe('self-crossing search against brute force (every pair of segments)', ()
 	});
 
 	it('gives exactly the brute-force crossings on mixed lines and cubics whose points lie on a coarse grid (cusps, loops, overlaps)', () => {
-		const seg = fc.record({ curve: fc.boolean(), p1: gridVertex(8), p2: gridVertex(8), p3: gridVertex(8) });
 		fc.assert(
-			fc.property(gridVertex(8), fc.array(seg, { minLength: 3, maxLength: 24 }), (start, raw) => {
-				const first: Vec = { x: start.x * 5, y: start.y * 5 };
-				const segs: Segment[] = [];
-				let p0 = first;
-				raw.forEach((s, k) => {
-					const p3 = k === raw.length - 1 ? first : { x: s.p3.x * 5, y: s.p3.y * 5 };
-					if (p3.x === p0.x && p3.y === p0.y) return;
-					segs.push(s.curve ? { kind: 'cubic', p0, p1: { x: s.p1.x * 5, y: s.p1.y * 5 }, p2: { x: s.p2.x * 5, y: s.p2.y * 5 }, p3 } : { kind: 'line', p0, p1: p3 });
-					p0 = p3;
-				});
-				fc.pre(segs.length >= 3);
+			fc.property(arbCoarseGridSegments(24), (segs) => {
 				expectSameAsBruteForce({ segments: segs });
 				expectSameAsBruteForce({ segments: segs }, false);
 			}),

@@ -4,24 +4,18 @@ import { outlineFromPolyline, pathFromPolyline } from './path';
 import { outlineSelfIntersections, outlineSelfIntersectionsByGrid } from './self-intersect';
 import { monotoneChainPairs } from './self-intersect-chains';
 import { touchReach } from './curve-curve';
-import type { ChainHit } from './intersect';
 import type { Outline, Segment, SegmentChain, Vec } from './types';
-import { arbOutline } from './test-support/arbitraries';
+import { hitsCanonical } from './test-support/self-intersect-cases';
 
 /**
  * The self-crossing search by monotone chains is checked against the general search (a uniform grid
- * over the segments' boxes, every pair whose boxes meet): both must give exactly the same crossings
- * on random outlines of lines and cubics, smooth or jagged, crossing or not, snapped to coarse grids
- * (flat runs, collinear overlaps, touching corners, cusps and loops), closed and open.
+ * over the segments' boxes, every pair whose boxes meet) on outlines too large for brute force: smooth
+ * or jagged, crossing or not, snapped polygons, closed and open. Small random outlines are checked
+ * against brute force in self-intersect-brute.test.ts.
  */
 
-const canonical = (hits: readonly ChainHit[]) =>
-	hits
-		.map((h) => [h.segmentIndex, h.otherSegmentIndex, h.t, h.otherT, h.point.x, h.point.y])
-		.sort((a, b) => a[0] - b[0] || a[1] - b[1] || a[2] - b[2] || a[3] - b[3]);
-
 function expectSameAsGrid(chain: SegmentChain, closed = true): void {
-	expect(canonical(outlineSelfIntersections(chain, closed))).toEqual(canonical(outlineSelfIntersectionsByGrid(chain, closed)));
+	expect(hitsCanonical(outlineSelfIntersections(chain, closed))).toEqual(hitsCanonical(outlineSelfIntersectionsByGrid(chain, closed)));
 }
 
 /** Smooth closed curve through points (Catmull–Rom to cubics), `tension` scaling the handles. */
@@ -53,13 +47,6 @@ function radial(n: number, wobble: number, lobes: number, spike: number, phase =
 const snap = (p: Vec, step: number): Vec => ({ x: Math.round(p.x / step) * step, y: Math.round(p.y / step) * step });
 
 describe('self-crossing search by monotone chains', () => {
-	it('gives exactly the crossings of the general search on small random outlines of lines and cubics', () => {
-		fc.assert(
-			fc.property(arbOutline, (o) => expectSameAsGrid(o)),
-			{ numRuns: 300, seed: 21 }
-		);
-	});
-
 	it('gives exactly the crossings of the general search on smooth curved outlines, crossing or not', () => {
 		fc.assert(
 			fc.property(
@@ -71,30 +58,6 @@ describe('self-crossing search by monotone chains', () => {
 				(n, wobble, lobes, spike, tension) => expectSameAsGrid({ segments: curvedThrough(radial(n, wobble, lobes, spike), tension) })
 			),
 			{ numRuns: 100, seed: 8 }
-		);
-	});
-
-	it('gives exactly the crossings of the general search on outlines whose points lie on a coarse grid (flat runs, overlaps, cusps, touching corners)', () => {
-		const vertex = fc.record({ x: fc.integer({ min: 0, max: 8 }), y: fc.integer({ min: 0, max: 8 }) });
-		const seg = fc.record({ curve: fc.boolean(), p1: vertex, p2: vertex, p3: vertex });
-		fc.assert(
-			fc.property(vertex, fc.array(seg, { minLength: 3, maxLength: 30 }), (start, raw) => {
-				const first: Vec = { x: start.x * 5, y: start.y * 5 };
-				const segs: Segment[] = [];
-				let p0 = first;
-				raw.forEach((s, k) => {
-					const p3 = k === raw.length - 1 ? first : { x: s.p3.x * 5, y: s.p3.y * 5 };
-					if (p3.x === p0.x && p3.y === p0.y) return;
-					const p1 = { x: s.p1.x * 5, y: s.p1.y * 5 };
-					const p2 = { x: s.p2.x * 5, y: s.p2.y * 5 };
-					segs.push(s.curve ? { kind: 'cubic', p0, p1, p2, p3 } : { kind: 'line', p0, p1: p3 });
-					p0 = p3;
-				});
-				fc.pre(segs.length >= 3);
-				expectSameAsGrid({ segments: segs });
-				expectSameAsGrid({ segments: segs }, false);
-			}),
-			{ numRuns: 400, seed: 4 }
 		);
 	});
 
