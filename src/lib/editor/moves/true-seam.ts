@@ -1,7 +1,7 @@
 import { segmentFlatten, vecDistance, type Vec } from '$lib/geometry';
 import { ledgerEntry } from '$lib/pattern/ledger';
 import { trueSeam } from '$lib/pattern/panels';
-import { pieceMetrics } from '$lib/pattern/metrics';
+import { reshapeChanges } from '$lib/pattern/reshape-declaration';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { fmtLength, fmtLengthSigned } from '../units';
 import type { SeamEdit } from '../doc';
@@ -82,23 +82,24 @@ export const trueSeamMove: MoveDef<TrueSeamState> = {
 		const key = run.keys[side];
 		const moves = reshapeMoves(run.before[side], run.r.pieces[side]);
 		if (!moves.length) return outcome('The seam is already true at that end: nothing to move.');
-		// what the move changes in the piece, declared as a labelled change (reshape posts nothing itself)
-		const mb = pieceMetrics(run.before[side]);
-		const ma = pieceMetrics(run.r.pieces[side]);
-		const lengthMm = ma.seamLengthMm - mb.seamLengthMm;
-		const areaMm2 = ma.areaMm2 - mb.areaMm2;
+		// what the move changes in the piece, declared as labelled changes (reshape posts nothing itself): one
+		// entry per seam whose length changed (moving an end changes the trued seam and its neighbour),
+		// as the server checks the seams one by one
 		const moved = run.r.after.aMm + run.r.after.bMm - (run.r.before.aMm + run.r.before.bMm);
-		const declared = [
-			ledgerEntry({
-				apexId: null,
-				kind: 'trued_seam',
-				refId: run.c.label,
-				label: `seam "${run.c.label}" trued: edge ${moved >= 0 ? 'lengthened' : 'shortened'} by ${Math.abs(moved).toFixed(2)} mm`,
-				angleRad: 0,
-				lengthMm,
-				areaMm2
-			})
-		];
+		const trued = `seam "${run.c.label}" trued: edge ${moved >= 0 ? 'lengthened' : 'shortened'} by ${Math.abs(moved).toFixed(2)} mm`;
+		const declared = reshapeChanges(run.before[side], run.r.pieces[side])
+			.filter((c) => c.subject !== 'apex')
+			.map((c) =>
+				ledgerEntry({
+					apexId: null,
+					kind: 'trued_seam',
+					refId: c.key,
+					label: `${trued}; ${c.label.toLowerCase()} ${c.difference >= 0 ? '+' : ''}${c.difference.toFixed(c.unit === 'mm²' ? 0 : 2)} ${c.unit}`,
+					angleRad: 0,
+					lengthMm: c.post.lengthMm,
+					areaMm2: c.post.areaMm2
+				})
+			);
 		const label = `${ctx.piece(key)?.name}: seam "${run.c.label}" trued`;
 		return outcome(ctx.apply(key, { op: 'reshape', params: { moves } }, { label, declared, seamEdit: storedEndMoved(ctx, st, run) }), 'select');
 	},
