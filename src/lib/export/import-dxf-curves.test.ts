@@ -7,7 +7,8 @@ import { rectPiece } from './test-support/rect-piece';
 import { DXF_IMPORT_TOLERANCE_MM } from './dxf-curves';
 import { styleDxf } from './dxf-writer';
 import { dxfImport } from './import-dxf';
-import { importedPieces, ImportRefusal } from './import-model';
+import { importedPieces } from './import-model';
+import { importRefusal } from './test-support/refusal';
 
 function drawing(draw: (d: DxfWriter) => void): string {
 	const d = new DxfWriter();
@@ -24,15 +25,7 @@ const only = (text: string) => {
 };
 /** Largest distance of the outline's corners from a circle (mm). */
 const offCircle = (o: Outline, cx: number, cy: number, r: number) => Math.max(...o.segments.map((s) => Math.abs(Math.hypot(s.p0.x - cx, s.p0.y - cy) - r)));
-function refusal(f: () => unknown): ImportRefusal {
-	try {
-		f();
-	} catch (e) {
-		if (e instanceof ImportRefusal) return e;
-		throw e;
-	}
-	throw new Error('not refused');
-}
+const refusal = importRefusal;
 
 describe('DXF boundaries drawn with curves', () => {
 	it('reads a CIRCLE as a closed boundary: corners on the circle, chords within the tolerance (area πr², within 0.1 %)', () => {

@@ -6,20 +6,13 @@ import { demoPrintPieces } from './test-support/demo-pieces';
 import { rectPiece } from './test-support/rect-piece';
 import { styleDxf } from './dxf-writer';
 import { dxfImport } from './import-dxf';
-import { importedPieces, ImportRefusal } from './import-model';
+import { importedPieces } from './import-model';
+import { importRefusal } from './test-support/refusal';
 
 const within = (got: number, want: number) => expect(Math.abs(got - want) / want).toBeLessThan(0.001);
 const input = (piece: ReturnType<typeof rectPiece>) => ({ piece, styleName: 'S', sizeLabel: '10', quantity: piece.cut === 'pair' ? 2 : 1, category: piece.fabric });
 
-function refusal(f: () => unknown): ImportRefusal {
-	try {
-		f();
-	} catch (e) {
-		if (e instanceof ImportRefusal) return e;
-		throw e;
-	}
-	throw new Error('not refused');
-}
+const refusal = importRefusal;
 
 describe('DXF import', () => {
 	it('reads the demo style\'s export back as the same pieces (cut and net areas and perimeters within 0.1 %)', () => {

@@ -3,21 +3,14 @@
 import { describe, expect, it } from 'vitest';
 import { outlineArea, pathBoundingBox } from '$lib/pattern/kernel';
 import { svgImport } from './import-svg';
-import { importedPieces, ImportRefusal } from './import-model';
+import { importedPieces } from './import-model';
+import { importRefusal } from './test-support/refusal';
 
 const svg = (body: string) =>
 	`<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" width="400mm" height="400mm" viewBox="0 0 400 400">${body}</svg>`;
 const RECT = '<defs><path id="panel" d="M0 0 H100 V50 H0 Z"/></defs>';
 
-function refusal(f: () => unknown): ImportRefusal {
-	try {
-		f();
-	} catch (e) {
-		if (e instanceof ImportRefusal) return e;
-		throw e;
-	}
-	throw new Error('not refused');
-}
+const refusal = importRefusal;
 
 describe('SVG <use>', () => {
 	it('draws nothing from <defs> by itself', () => {

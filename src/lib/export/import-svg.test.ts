@@ -4,20 +4,13 @@ import { outlineArea, pathLength } from '$lib/pattern/kernel';
 import { outlinePleatsAcross } from '$lib/pattern/export/pleat-marks';
 import { styleSvg } from '$lib/pattern/export/svg';
 import { demoPrintPieces } from './test-support/demo-pieces';
-import { importedPieces, ImportRefusal } from './import-model';
+import { importedPieces } from './import-model';
 import { svgImport } from './import-svg';
+import { importRefusal } from './test-support/refusal';
 
 const within = (got: number, want: number) => expect(Math.abs(got - want) / want).toBeLessThan(0.001);
 
-function refusal(f: () => unknown): ImportRefusal {
-	try {
-		f();
-	} catch (e) {
-		if (e instanceof ImportRefusal) return e;
-		throw e;
-	}
-	throw new Error('not refused');
-}
+const refusal = importRefusal;
 
 const square = (attrs: string, body = '<path d="M 0 0 H 100 V 100 H 0 Z"/>') => `<svg xmlns="http://www.w3.org/2000/svg" ${attrs}>${body}</svg>`;
 

@@ -8,6 +8,34 @@ import type { PackItem, Packed } from './pack';
  */
 export type PackOrder = 'height' | 'width' | 'area';
 
+type Span = { x: number; w: number; y: number };
+
+/**
+ * The skyline with the spans under [x, x + w) replaced by one span at height top (parts of spans
+ * sticking out either side kept), in order of x; with `merge`, neighbours at the same height become one
+ * span (the page-counting packing keeps them apart: their edges are places it tries).
+ */
+function skylineRaised(sky: readonly Span[], x: number, w: number, top: number, merge = true): Span[] {
+	const next: Span[] = [];
+	for (const s of sky) {
+		const end = s.x + s.w;
+		if (end <= x || s.x >= x + w) next.push(s);
+		else {
+			if (s.x < x) next.push({ x: s.x, w: x - s.x, y: s.y });
+			if (end > x + w) next.push({ x: x + w, w: end - (x + w), y: s.y });
+		}
+	}
+	next.push({ x, w, y: top });
+	next.sort((a, b) => a.x - b.x);
+	if (!merge) return next;
+	return next.reduce<Span[]>((acc, s) => {
+		const last = acc[acc.length - 1];
+		if (last && Math.abs(last.y - s.y) < 1e-9 && Math.abs(last.x + last.w - s.x) < 1e-9) last.w += s.w;
+		else acc.push({ ...s });
+		return acc;
+	}, []);
+}
+
 const KEY: Record<PackOrder, (i: PackItem) => number> = {
 	height: (i) => i.heightMm,
 	width: (i) => i.widthMm,
@@ -18,7 +46,7 @@ export function skylinePack(items: readonly PackItem[], stripWidthMm: number, ga
 	const key = KEY[by];
 	const order = items.map((_, i) => i).sort((a, b) => key(items[b]) - key(items[a]) || items[b].heightMm - items[a].heightMm || a - b);
 	// the skyline: spans [x, x + w) whose lowest free y is y (gap included)
-	let sky: { x: number; w: number; y: number }[] = [{ x: 0, w: Math.max(stripWidthMm, ...items.map((i) => i.widthMm)) + gapMm, y: 0 }];
+	let sky: Span[] = [{ x: 0, w: Math.max(stripWidthMm, ...items.map((i) => i.widthMm)) + gapMm, y: 0 }];
 	const at: { x: number; y: number }[] = items.map(() => ({ x: 0, y: 0 }));
 	let widthMm = 0;
 	let heightMm = 0;
@@ -37,25 +65,7 @@ export function skylinePack(items: readonly PackItem[], stripWidthMm: number, ga
 		widthMm = Math.max(widthMm, p.x + items[i].widthMm);
 		heightMm = Math.max(heightMm, p.y + items[i].heightMm);
 		// raise the skyline under the item
-		const top = p.y + items[i].heightMm + gapMm;
-		const next: { x: number; w: number; y: number }[] = [];
-		for (const s of sky) {
-			const end = s.x + s.w;
-			if (end <= p.x || s.x >= p.x + w) next.push(s);
-			else {
-				if (s.x < p.x) next.push({ x: s.x, w: p.x - s.x, y: s.y });
-				if (end > p.x + w) next.push({ x: p.x + w, w: end - (p.x + w), y: s.y });
-			}
-		}
-		next.push({ x: p.x, w, y: top });
-		next.sort((a, b) => a.x - b.x);
-		// neighbours at the same height are one span
-		sky = next.reduce<{ x: number; w: number; y: number }[]>((acc, s) => {
-			const last = acc[acc.length - 1];
-			if (last && Math.abs(last.y - s.y) < 1e-9 && Math.abs(last.x + last.w - s.x) < 1e-9) last.w += s.w;
-			else acc.push({ ...s });
-			return acc;
-		}, []);
+		sky = skylineRaised(sky, p.x, w, p.y + items[i].heightMm + gapMm);
 	}
 	return { at, widthMm, heightMm };
 }
@@ -83,7 +93,7 @@ export function pageAwarePack(items: readonly PackItem[], stripWidthMm: number, 
 		for (let c = c0; c * grid.stepXMm < x + w; c++) for (let r = r0; r * grid.stepYMm < y + h; r++) out.push(`${r},${c}`);
 		return out;
 	};
-	let sky: { x: number; w: number; y: number }[] = [{ x: 0, w: Math.max(stripWidthMm, ...items.map((i) => i.widthMm)) + gapMm, y: 0 }];
+	let sky: Span[] = [{ x: 0, w: Math.max(stripWidthMm, ...items.map((i) => i.widthMm)) + gapMm, y: 0 }];
 	const at: { x: number; y: number }[] = items.map(() => ({ x: 0, y: 0 }));
 	let widthMm = 0;
 	let heightMm = 0;
@@ -111,20 +121,7 @@ export function pageAwarePack(items: readonly PackItem[], stripWidthMm: number, 
 		for (const pg of pagesOf(p.x, p.y, iw, ih)) used.add(pg);
 		widthMm = Math.max(widthMm, p.x + iw);
 		heightMm = Math.max(heightMm, p.y + ih);
-		const top = p.y + ih + gapMm;
-		const w = iw + gapMm;
-		const next: { x: number; w: number; y: number }[] = [];
-		for (const s of sky) {
-			const end = s.x + s.w;
-			if (end <= p.x || s.x >= p.x + w) next.push(s);
-			else {
-				if (s.x < p.x) next.push({ x: s.x, w: p.x - s.x, y: s.y });
-				if (end > p.x + w) next.push({ x: p.x + w, w: end - (p.x + w), y: s.y });
-			}
-		}
-		next.push({ x: p.x, w, y: top });
-		next.sort((a, b) => a.x - b.x);
-		sky = next;
+		sky = skylineRaised(sky, p.x, iw + gapMm, p.y + ih + gapMm, false);
 	}
 	return { at, widthMm, heightMm };
 }
