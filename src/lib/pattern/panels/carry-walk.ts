@@ -66,10 +66,11 @@ export function styleLineWalkedEqual(panels: readonly Piece[], seams: readonly S
 		if (!ha || !hb || dist(ha.point, D.point) <= SEAM_SNAP_MM || dist(hb.point, D.point) <= SEAM_SNAP_MM) return;
 		const da = pathLengthAt(w.openA, ha);
 		const db = pathLengthAt(w.openB, hb);
-		const d = (da + db) / 2;
-		const a = Math.abs(da - db) <= EQUAL_LEGS_MM ? ha.point : pathPointAtLength(w.openA, d).point;
-		const b = Math.abs(da - db) <= EQUAL_LEGS_MM ? hb.point : pathPointAtLength(w.openB, d).point;
-		walks.push({ seamId: pair.id, drawnMm: [da, db], walkedMm: Math.abs(da - db) <= EQUAL_LEGS_MM ? da : d, a, b });
+		const equal = Math.abs(da - db) <= EQUAL_LEGS_MM;
+		const d = equal ? da : (da + db) / 2;
+		const a = equal ? ha.point : pathPointAtLength(w.openA, d).point;
+		const b = equal ? hb.point : pathPointAtLength(w.openB, d).point;
+		walks.push({ seamId: pair.id, drawnMm: [da, db], walkedMm: d, a, b });
 		// every crossing is a fixed point of the bent line (moved or not), so bending the line at one seam
 		// never shifts where it crosses another
 		moves.push({ at: { segmentIndex: ha.otherSegmentIndex, t: ha.otherT }, to: a });
