@@ -116,7 +116,8 @@ async function main() {
 			if (!r.ok()) throw new Error(`${url}: ${r.status()} ${await r.text()}`);
 			return r.json();
 		};
-		const studio = (await post('/api/studios', { name: 'Bench studio' })).studio;
+		// the studio the sign-up made (the free plan includes one studio per owner)
+		const studio = ((await (await page.request.get(`${base}/api/studios`)).json()).studios as { id: string }[])[0];
 		const style = (await post(`/api/studios/${studio.id}/styles`, { name: `Bench style ${PIECES}×${VERTICES}` })).style;
 		const sample = denseBlock(0);
 		for (let i = 0; i < PIECES; i++) await post(`/api/studios/${studio.id}/styles/${style.id}/pieces`, { name: `Bench piece ${i + 1}`, geometry: denseBlock(i), origin: { op: 'draft' } });

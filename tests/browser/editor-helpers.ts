@@ -36,7 +36,10 @@ export async function styleWithPieces(page: Page, baseUrl: string, pieces: reado
 		if (!r.ok()) throw new Error(`${url}: ${r.status()} ${await r.text()}`);
 		return r.json();
 	};
-	const studio = (await post('/api/studios', { name: 'Editor tests' })).studio;
+	// the studio the sign-up made (the free plan includes one studio per owner)
+	const mine = await page.request.get(`${baseUrl}/api/studios`);
+	const owned = ((await mine.json()).studios as { id: string; role: string }[]).find((x) => x.role === 'owner');
+	const studio = owned ?? (await post('/api/studios', { name: 'Editor tests' })).studio;
 	const style = (await post(`/api/studios/${studio.id}/styles`, { name: styleName })).style;
 	const pieceIds: string[] = [];
 	for (const p of pieces) {

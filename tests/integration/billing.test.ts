@@ -161,3 +161,60 @@ describe('a failed payment', () => {
 		expect(paid.subscription.status).toBe('active');
 	});
 });
+
+describe('studios per owner', () => {
+	it('refuses a second studio on Sketch with 402 naming the first, and allows it once that one is on Studio', async () => {
+		const s = await ownedStudio(app);
+		const second = await s.client.api('POST', '/api/studios', { name: 'Second room' });
+		expect(second.status).toBe(402);
+		const err = (await second.json()).error;
+		expect(err.code).toBe('plan_limit');
+		expect(err.message).toMatch(/^The Sketch plan includes one studio per owner, and you own "Billing [0-9a-f]+" on it\. Upgrade it to the Studio plan/);
+		const form = await s.client.post('/studios/new', { name: 'Second room' });
+		expect(form.status).toBe(402);
+		expect(await form.text()).toContain('one studio per owner');
+		await upgrade(app, s, 1);
+		expect((await s.client.api('POST', '/api/studios', { name: 'Second room' })).status).toBe(201);
+	});
+});
+
+describe('the customer-management page', () => {
+	it('cancels at period end and resumes through the provider, and the studio shows it once the webhook is handled', async () => {
+		const s = await ownedStudio(app);
+		await upgrade(app, s, 1);
+		const r = await s.client.api('POST', `/api/studios/${s.studioId}/billing/portal`, { flow: 'manage' });
+		expect(r.status).toBe(201);
+		const url: string = (await r.json()).portal.url;
+		const page = await fetch(url);
+		expect(page.status).toBe(200);
+		const html = await page.text();
+		expect(html).toContain(`${app.baseUrl}/studios/${s.studioId}/billing?portal=done`);
+		const subId = (await billingOf(s)).subscription.id;
+		const form = (action: string) =>
+			fetch(`${url.split('?')[0]}/${action}`, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: `subscription=${subId}`, redirect: 'manual' });
+		expect((await form('cancel')).status).toBe(303);
+		await app.payments.idle();
+		expect((await billingOf(s)).subscription).toMatchObject({ cancelAtPeriodEnd: true, status: 'active' });
+		expect((await form('resume')).status).toBe(303);
+		await app.payments.idle();
+		expect((await billingOf(s)).subscription.cancelAtPeriodEnd).toBe(false);
+	});
+
+	it('switches between monthly and yearly through the API', async () => {
+		const s = await ownedStudio(app);
+		await upgrade(app, s, 2, 'month');
+		expect((await s.client.api('PATCH', `/api/studios/${s.studioId}/billing/subscription`, { interval: 'year' })).status).toBe(202);
+		await app.payments.idle();
+		expect((await billingOf(s)).subscription).toMatchObject({ interval: 'year', seats: 2 });
+	});
+
+	it('refuses a portal or a change for a studio that has never paid', async () => {
+		const s = await ownedStudio(app);
+		const portal = await s.client.api('POST', `/api/studios/${s.studioId}/billing/portal`, { flow: 'manage' });
+		expect(portal.status).toBe(409);
+		expect((await portal.json()).error.code).toBe('no_billing_account');
+		const change = await s.client.api('PATCH', `/api/studios/${s.studioId}/billing/subscription`, { seats: 4 });
+		expect(change.status).toBe(409);
+		expect((await change.json()).error.message).toContain('free Sketch plan');
+	});
+});

@@ -1,3 +1,4 @@
+import { planStudioCreateEnforce } from './billing/plan';
 import type { Db } from './db';
 import type { Role } from './db/schema';
 import {
@@ -11,8 +12,10 @@ import { studiosCreate, type StudioRow } from './repositories/studios';
 
 /** Studio and membership rules that span several rows (a studio always keeps an owner). */
 
+/** A new studio with its owner; 402 when the owner has a studio on the free plan already (plans.ts). */
 export async function studioCreateOwned(db: Db, name: string, ownerId: string): Promise<StudioRow> {
 	return db.transaction().execute(async (tx) => {
+		await planStudioCreateEnforce(tx, ownerId);
 		const studio = await studiosCreate(tx, name);
 		await membershipsCreate(tx, { studioId: studio.id, userId: ownerId, role: 'owner' });
 		return studio;

@@ -1,7 +1,7 @@
 import { limitCheck, limitsExceeded, type LimitName, type PlanState } from '../../billing/plans';
 import type { DbOrTx } from '../db';
 import { ApiError } from '../http-errors';
-import { billingOfStudio, billingSeatUsage, billingStylesCount, type StudioBillingRow } from '../repositories/billing';
+import { billingOfStudio, billingSeatUsage, billingSketchStudiosOwned, billingStylesCount, type StudioBillingRow } from '../repositories/billing';
 
 /** Subscription statuses under which the studio has the Studio plan (past_due: paid seats kept while the provider retries). */
 export const LIVE_STATUSES: ReadonlySet<string> = new Set(['active', 'trialing', 'past_due']);
@@ -43,4 +43,20 @@ export async function planLimitEnforce(db: DbOrTx, studioId: string, limit: Extr
 	const { state, usage } = await studioPlan(db, studioId);
 	const check = limitCheck(state, limit, limit === 'seats' ? usage.seats : usage.styles, adding);
 	if (!check.ok) throw new ApiError(402, 'plan_limit', check.message);
+}
+
+/**
+ * A new studio starts on Sketch, and the Sketch plan includes one studio per owner: refused (402) when
+ * the person already owns a studio on Sketch. Studios on the Studio plan do not count.
+ */
+export async function planStudioCreateEnforce(db: DbOrTx, userId: string): Promise<void> {
+	const owned = await billingSketchStudiosOwned(db, userId, [...LIVE_STATUSES]);
+	const check = limitCheck({ plan: 'sketch' }, 'studios_owned', owned.length);
+	if (check.ok) return;
+	const names = owned.map((s) => `"${s.name}"`).join(', ');
+	throw new ApiError(
+		402,
+		'plan_limit',
+		`The Sketch plan includes one studio per owner, and you own ${names} on it. Upgrade ${owned.length === 1 ? 'it' : 'one of them'} to the Studio plan on its Billing page to start another studio.`
+	);
 }

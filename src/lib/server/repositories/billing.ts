@@ -195,3 +195,23 @@ export async function billingOwners(db: DbOrTx, studioId: string): Promise<{ ema
 		.orderBy('users.email')
 		.execute();
 }
+
+/** The studios this person owns that are not on a live paid subscription (the Sketch plan's). */
+export async function billingSketchStudiosOwned(db: DbOrTx, userId: string, liveStatuses: readonly string[]): Promise<{ id: string; name: string }[]> {
+	return db
+		.selectFrom('memberships')
+		.innerJoin('studios', 'studios.id', 'memberships.studio_id')
+		.leftJoin('studio_billing', 'studio_billing.studio_id', 'memberships.studio_id')
+		.select(['studios.id', 'studios.name'])
+		.where('memberships.user_id', '=', userId)
+		.where('memberships.role', '=', 'owner')
+		.where((eb) =>
+			eb.or([
+				eb('studio_billing.status', 'is', null),
+				eb('studio_billing.status', 'not in', [...liveStatuses]),
+				eb('studio_billing.seats', '<=', 0)
+			])
+		)
+		.orderBy('studios.name')
+		.execute();
+}

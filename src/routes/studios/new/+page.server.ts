@@ -2,6 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
+import { ApiError } from '$lib/server/http-errors';
 import { studioCreateOwned } from '$lib/server/studios';
 import { fieldErrors, formObject, studioNameSchema } from '$lib/server/validation';
 import type { Actions, PageServerLoad } from './$types';
@@ -19,7 +20,13 @@ export const actions: Actions = {
 		const raw = formObject(await event.request.formData());
 		const parsed = schema.safeParse(raw);
 		if (!parsed.success) return fail(400, { name: raw.name ?? '', errors: fieldErrors(parsed.error) });
-		const studio = await studioCreateOwned(db(), parsed.data.name, user.id);
+		let studio;
+		try {
+			studio = await studioCreateOwned(db(), parsed.data.name, user.id);
+		} catch (e) {
+			if (e instanceof ApiError && e.status === 402) return fail(402, { name: parsed.data.name, errors: { name: [e.message] } });
+			throw e;
+		}
 		redirect(303, `/studios/${studio.id}`);
 	}
 };
