@@ -1,25 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '$lib/pattern/fixtures/front-bodice-block';
 import { dartNear, hitTest, snapPoint } from './hit';
-import { fmtLength, lengthFromField, lengthToField } from './units';
 import { fitBox, screenToWorld, worldToScreen, zoomAbout } from './view';
-
-describe('editor units', () => {
-	it('shows lengths in mm, cm and inches in eighths', () => {
-		expect(fmtLength(210.238, 'mm')).toBe('210.2 mm');
-		expect(fmtLength(210.238, 'cm')).toBe('21.02 cm');
-		expect(fmtLength(210.238, 'in')).toBe('8 1/4 in');
-		expect(fmtLength(-3.175, 'in')).toBe('−1/8 in');
-	});
-	it('reads typed lengths back in mm', () => {
-		expect(lengthFromField('4 7/8', 'in')).toBeCloseTo(123.825, 6);
-		expect(lengthFromField('12,5', 'cm')).toBe(125);
-		expect(lengthFromField('−15', 'mm')).toBe(-15);
-		expect(lengthFromField('abc', 'mm')).toBeNull();
-		expect(lengthToField(30, 'in')).toBe('1 1/8');
-		expect(lengthFromField(lengthToField(30, 'in'), 'in')).toBeCloseTo(28.575, 6);
-	});
-});
 
 describe('editor view', () => {
 	it('zooms about a screen point without moving the world point under it', () => {
@@ -50,12 +32,33 @@ describe('editor hit testing and snapping', () => {
 		expect(hitTest(placed, { x: 160, y: 350 }, 2)?.kind).toBe('inside');
 		expect(hitTest(placed, { x: 0, y: 350 }, 2)).toBeNull();
 	});
-	it('snaps to points before midpoints and edges, then to the 10 mm grid', () => {
-		expect(snapPoint(placed, { x: 336, y: 229 }, 3, { grid: true }).kind).toBe('point');
-		expect(snapPoint(placed, { x: 330, y: 335 }, 3, { grid: true }).kind).toBe('midpoint');
-		const g = snapPoint(placed, { x: 21, y: 39 }, 3, { grid: true });
+	it('snaps to points before midpoints and edges, then to the pattern paper grid the user chose', () => {
+		const cm2 = { gridMm: 20 };
+		expect(snapPoint(placed, { x: 336, y: 229 }, 3, { grid: true }, cm2).kind).toBe('point');
+		expect(snapPoint(placed, { x: 330, y: 335 }, 3, { grid: true }, cm2).kind).toBe('midpoint');
+		const g = snapPoint(placed, { x: 21, y: 39 }, 3, { grid: true }, cm2);
 		expect(g.kind).toBe('grid');
 		expect(g.world).toEqual({ x: 20, y: 40 });
+		// on inch paper the nearest node is 1 in away on each axis
+		const inch = snapPoint(placed, { x: 24, y: 27 }, 3, { grid: true }, { gridMm: 25.4 });
+		expect(inch.kind).toBe('grid');
+		expect(inch.world.x).toBeCloseTo(25.4, 9);
+		expect(inch.world.y).toBeCloseTo(25.4, 9);
+		// a 10 mm node is no longer a snap on 2 cm paper
+		expect(snapPoint(placed, { x: 11, y: 29 }, 3, { grid: true }, cm2).kind).toBe('free');
+		expect(snapPoint(placed, { x: 21, y: 39 }, 3, { grid: false }, cm2).kind).toBe('free');
+	});
+	it('snaps a line end to 15° steps from its other end before the grid', () => {
+		const from = { x: 0, y: 600 };
+		const s = snapPoint(placed, { x: 50, y: 601.5 }, 3, { grid: true, angleFrom: from }, { gridMm: 20 });
+		expect(s.kind).toBe('angle');
+		expect(s.world.y).toBeCloseTo(600, 9);
+		expect(Math.hypot(s.world.x - from.x, s.world.y - from.y)).toBeCloseTo(Math.hypot(50, 1.5), 9);
+	});
+	it('on one piece, always gives the nearest point of its outline', () => {
+		const s = snapPoint(placed, { x: 0, y: 350 }, 3, { onlyPiece: 'a', outlineOnly: true }, { gridMm: 20 });
+		expect(s.pieceKey).toBe('a');
+		expect(['edge', 'point', 'midpoint']).toContain(s.kind);
 	});
 	it('finds the dart near a point', () => {
 		const d = piece.darts[0];

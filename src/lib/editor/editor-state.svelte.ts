@@ -166,7 +166,7 @@ export class EditorState {
 		return hitTest(this.docs.placed, world, this.camera.tolMm(7));
 	}
 	snapAt(world: Vec, opts: SnapOptions = {}): Snap {
-		return snapPoint(this.docs.placed, world, this.camera.tolMm(9), { grid: true, ...opts });
+		return snapPoint(this.docs.placed, world, this.camera.tolMm(9), { grid: true, ...opts }, { gridMm: PAPER_GRID_MM[this.camera.paperGrid] });
 	}
 	private boxOf(outer: boolean): BoundingBox {
 		let box = BOUNDING_BOX_EMPTY;

@@ -8,6 +8,7 @@ import {
 	vecSub,
 	type Vec
 } from '$lib/geometry';
+import { snapToAngle, snapToEdges, snapToGrid, snapToPoints, type SnapPointCandidate } from '$lib/geometry/snap';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { pieceDrawing } from './drawing';
 
@@ -30,7 +31,7 @@ export interface Hit {
 	readonly t: number;
 }
 
-export type SnapKind = 'apex' | 'point' | 'midpoint' | 'edge' | 'grid' | 'free';
+export type SnapKind = 'apex' | 'point' | 'midpoint' | 'edge' | 'angle' | 'grid' | 'free';
 
 export interface Snap {
 	readonly kind: SnapKind;
@@ -40,8 +41,6 @@ export interface Snap {
 	readonly segmentIndex: number;
 	readonly t: number;
 }
-
-export const GRID_MM = 10;
 
 function near(p: PlacedPiece, world: Vec, tol: number): boolean {
 	return boundingBoxContainsPoint(pieceDrawing(p.piece).bbox, vecSub(world, p.offset), tol);
@@ -69,47 +68,82 @@ export function hitTest(pieces: readonly PlacedPiece[], world: Vec, tolMm: numbe
 }
 
 export interface SnapOptions {
+	/** Snap to the pattern paper's grid (the editor's snapAt: on unless false). */
 	readonly grid?: boolean;
 	/** Only this piece's features (and then the outline's nearest point is always taken). */
 	readonly onlyPiece?: string;
 	readonly outlineOnly?: boolean;
+	/** Snap the direction from this point (world) to 15° steps, the distance kept (a line's second end). */
+	readonly angleFrom?: Vec | null;
 }
 
-/** Snap a pointer position to apexes, outline points, midpoints, edges, then the 10 mm grid. */
-export function snapPoint(pieces: readonly PlacedPiece[], world: Vec, tolMm: number, opts: SnapOptions = {}): Snap {
-	let best: Snap | null = null;
-	let bestD = Infinity;
-	const rank: Record<SnapKind, number> = { apex: 0, point: 1, midpoint: 2, edge: 3, grid: 4, free: 5 };
-	const consider = (s: Snap, d: number) => {
-		if (d > tolMm) return;
-		if (!best || rank[s.kind] < rank[best.kind] || (rank[s.kind] === rank[best.kind] && d < bestD)) {
-			best = s;
-			bestD = d;
+export interface SnapPlaces {
+	/** The paper's grid spacing in mm (2 cm or 1 in), grid nodes at multiples of it from the table's origin; 0 for none. */
+	readonly gridMm: number;
+}
+
+/** Directions a line snaps to: every 15°. */
+export const SNAP_ANGLE_STEP_RAD = Math.PI / 12;
+
+interface PieceSnapPoints {
+	readonly apexes: readonly SnapPointCandidate[];
+	readonly ends: readonly SnapPointCandidate[];
+	readonly mids: readonly SnapPointCandidate[];
+}
+/** A piece's snap points, made once per piece value (pieces are immutable). */
+const snapPointsCache = new WeakMap<Piece, PieceSnapPoints>();
+function pieceSnapPoints(piece: Piece): PieceSnapPoints {
+	let c = snapPointsCache.get(piece);
+	if (!c) {
+		const segs = piece.outline.segments;
+		c = {
+			apexes: piece.apexes.map((a) => ({ point: a.point, role: 'apex' as const, id: a.id })),
+			ends: segs.map((s, i) => ({ point: s.p0, role: 'segment_end' as const, id: piece.id, segmentIndex: i, controlPoint: 0 as const })),
+			mids: segs.map((s, i) => ({ point: segmentPointAt(s, 0.5), role: 'mark' as const, id: piece.id, segmentIndex: i }))
+		};
+		snapPointsCache.set(piece, c);
+	}
+	return c;
+}
+
+/**
+ * Snap a pointer position (world mm) with the kernel's snapping (`$lib/geometry/snap`), in this order:
+ * apexes, outline points, midpoints of segments, edges, 15° from `angleFrom`, the paper's grid. Within
+ * a kind the nearest target inside the radius wins.
+ */
+export function snapPoint(pieces: readonly PlacedPiece[], world: Vec, tolMm: number, opts: SnapOptions = {}, places: SnapPlaces = { gridMm: 0 }): Snap {
+	const around = pieces.filter((pp) => (opts.onlyPiece ? pp.key === opts.onlyPiece : near(pp, world, tolMm)));
+	const onPiece = (kind: SnapKind, which: (c: PieceSnapPoints) => readonly SnapPointCandidate[]): Snap | null => {
+		let best: Snap | null = null;
+		let bestD = tolMm;
+		for (const pp of around) {
+			const h = snapToPoints(vecSub(world, pp.offset), which(pieceSnapPoints(pp.piece)), bestD);
+			if (h && (!best || h.distanceMm < bestD)) {
+				const seg = h.target.kind === 'point' ? (h.target.segmentIndex ?? -1) : -1;
+				best = { kind, world: vecAdd(h.point, pp.offset), pieceKey: pp.key, local: h.point, segmentIndex: seg, t: kind === 'midpoint' ? 0.5 : 0 };
+				bestD = h.distanceMm;
+			}
 		}
+		return best;
 	};
-	for (const pp of pieces) {
-		if (opts.onlyPiece && pp.key !== opts.onlyPiece) continue;
-		if (!opts.onlyPiece && !near(pp, world, tolMm)) continue;
-		const local = vecSub(world, pp.offset);
-		const mk = (kind: SnapKind, l: Vec, segmentIndex = -1, t = 0): Snap => ({ kind, world: vecAdd(l, pp.offset), pieceKey: pp.key, local: l, segmentIndex, t });
-		if (!opts.outlineOnly) for (const a of pp.piece.apexes) consider(mk('apex', a.point), vecDistance(a.point, local));
-		const segs = pp.piece.outline.segments;
-		for (let s = 0; s < segs.length; s++) {
-			consider(mk('point', segs[s].p0, s, 0), vecDistance(segs[s].p0, local));
-			const m = segmentPointAt(segs[s], 0.5);
-			consider(mk('midpoint', m, s, 0.5), vecDistance(m, local));
+	const found = (!opts.outlineOnly && onPiece('apex', (c) => c.apexes)) || onPiece('point', (c) => c.ends) || onPiece('midpoint', (c) => c.mids);
+	if (found) return found;
+	let edge: Snap | null = null;
+	let edgeD = opts.onlyPiece ? Infinity : tolMm;
+	for (const pp of around) {
+		const h = snapToEdges(vecSub(world, pp.offset), [{ chain: pp.piece.outline, id: pp.key }], edgeD);
+		if (h && h.target.kind === 'edge' && (!edge || h.distanceMm < edgeD)) {
+			edge = { kind: 'edge', world: vecAdd(h.point, pp.offset), pieceKey: pp.key, local: h.point, segmentIndex: h.target.segmentIndex, t: h.target.t };
+			edgeD = h.distanceMm;
 		}
-		const n = outlineNearestPoint(pp.piece.outline, local);
-		const e = mk('edge', n.point, n.segmentIndex, n.t);
-		if (opts.onlyPiece) consider(e, Math.min(n.distance, tolMm));
-		else consider(e, n.distance);
 	}
-	if (best) return best;
-	if (opts.grid) {
-		const g = { x: Math.round(world.x / GRID_MM) * GRID_MM, y: Math.round(world.y / GRID_MM) * GRID_MM };
-		if (vecDistance(g, world) <= tolMm) return { kind: 'grid', world: g, pieceKey: null, local: null, segmentIndex: -1, t: 0 };
-	}
-	return { kind: 'free', world, pieceKey: null, local: null, segmentIndex: -1, t: 0 };
+	if (edge) return edge;
+	const free = (kind: SnapKind, at: Vec): Snap => ({ kind, world: at, pieceKey: null, local: null, segmentIndex: -1, t: 0 });
+	const angle = opts.angleFrom ? snapToAngle(world, { anchor: opts.angleFrom, stepRad: SNAP_ANGLE_STEP_RAD }, tolMm) : null;
+	if (angle) return free('angle', angle.point);
+	const grid = opts.grid && places.gridMm > 0 ? snapToGrid(world, { spacingMm: places.gridMm, origin: { x: 0, y: 0 } }, tolMm) : null;
+	if (grid) return free('grid', grid.point);
+	return free('free', world);
 }
 
 /** Distance from p to the segment ab. */

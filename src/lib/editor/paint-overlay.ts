@@ -113,6 +113,10 @@ function paintSnap(ctx: CanvasRenderingContext2D, snap: Snap | null, px: number)
 			ctx.lineTo(p.x + r, p.y + r);
 			ctx.lineTo(p.x - r, p.y + r);
 			ctx.closePath();
+		} else if (snap.kind === 'angle') {
+			ctx.moveTo(p.x + r, p.y - r);
+			ctx.lineTo(p.x - r, p.y + r);
+			ctx.lineTo(p.x + r, p.y + r);
 		} else if (snap.kind === 'edge') {
 			ctx.moveTo(p.x - r, p.y - r);
 			ctx.lineTo(p.x + r, p.y + r);

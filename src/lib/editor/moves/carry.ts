@@ -1,7 +1,7 @@
 import { segmentFlatten, vecDistance, vecLerp, type Path, type Vec } from '$lib/geometry';
 import { carry, type SeamPair } from '$lib/pattern/panels';
 import { docLayAsDrafted, docMerge } from '../state/doc-edits';
-import { fmtDeg, fmtLength } from '../units';
+import { angleText, lengthReadoutText } from '$lib/pattern/measurements/units';
 import type { MoveContext } from './context';
 import { opPieces, storedPair, storedPairUsable } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem, type Readout } from './types';
@@ -220,24 +220,24 @@ function carryPreview(ctx: MoveContext, st: CarryState): MovePreview | null {
 	for (const e of r.styleSeamEdges) overlay.push({ kind: 'line', points: e.segments.flatMap((g) => segmentFlatten(g, 0.3)).map(W), tone: 'measure' });
 	overlay.push({ kind: 'line', points: r.reachLine.segments.flatMap((g) => segmentFlatten(g, 0.3)).map(W), tone: 'reach', dashed: true });
 	const apexes = run.chain.keys.flatMap((k) => ctx.piece(k)?.geometry.apexes ?? []);
-	const mm = (v: number) => fmtLength(v, ctx.unit);
+	const mm = (v: number) => lengthReadoutText(v, ctx.unit);
 	const seamName = (id: string) => ctx.seamPairs.find((x) => x.id === id)?.label || id;
 	for (const res of r.residuals) {
 		const D = apexes.find((a) => a.id === res.apexId)?.point;
 		if (!D) continue;
-		overlay.push({ kind: 'point', at: W(D), tone: 'bad' }, { kind: 'label', at: W({ x: D.x, y: D.y - 4 }), text: `${seamName(res.seamId)}: ${mm(res.distanceMm)} off · ${fmtDeg(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line` });
+		overlay.push({ kind: 'point', at: W(D), tone: 'bad' }, { kind: 'label', at: W({ x: D.x, y: D.y - 4 }), text: `${seamName(res.seamId)}: ${mm(res.distanceMm)} off · ${angleText(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line` });
 	}
 	const carried = r.report.values.carriedAngleRad ?? 0;
 	const readouts: Readout[] = [
 		{ label: 'Panels', value: String(run.chain.keys.length) },
-		{ label: 'Carried into the style seam', value: fmtDeg(carried), tone: r.residuals.length ? 'warn' : 'ok' },
+		{ label: 'Carried into the style seam', value: angleText(carried), tone: r.residuals.length ? 'warn' : 'ok' },
 		{ label: 'Style seam (joined side)', value: mm(r.styleSeamLengthMm) },
 		{ label: 'Style line (other side)', value: mm(r.otherSideSeamLengthMm) },
 		{ label: 'Shaping moved', value: mm(r.shapingMovedMm) }
 	];
 	if (!r.residuals.length) readouts.push({ label: 'Residuals', value: 'none: the line reaches every divergence point', tone: 'ok' });
 	for (const res of r.residuals) {
-		readouts.push({ label: `Residual at ${seamName(res.seamId)}`, value: `${mm(res.distanceMm)} off · ${fmtDeg(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line`, tone: 'bad' });
+		readouts.push({ label: `Residual at ${seamName(res.seamId)}`, value: `${mm(res.distanceMm)} off · ${angleText(res.angleRad)} · ${mm(res.widthAtLineMm)} at the line`, tone: 'bad' });
 	}
 	return { ...base, piece: null, pieces: r.pieces, piecesGapMm: 0, hides: run.chain.keys, readouts, ledger: r.ledgerEntries, notes: [r.report.summary, ...r.report.notes], canCommit: true };
 }

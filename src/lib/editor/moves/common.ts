@@ -3,7 +3,7 @@ import type { Piece } from '$lib/pattern/piece-schema';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
 import { dartNear } from '../hit';
 import { editorApply } from '../ops';
-import { fmtArea, fmtDeg, fmtLength, type LengthUnit } from '../units';
+import { areaText, angleText, lengthReadoutText, type LengthUnit } from '$lib/pattern/measurements/units';
 import type { MoveContext } from './context';
 import { emptyPreview, type MovePreview, type OverlayItem, type PointerInfo, type Readout } from './types';
 
@@ -82,8 +82,8 @@ export function stepPreview(ctx: MoveContext, st: OnPiece, step: RecipeStepData,
 	return { pieceKey: key, piece: r.piece, error: null, readouts: readouts(r.report.values), ledger: r.ledgerEntries, overlay, notes: [r.report.summary, ...r.report.notes], canCommit: true };
 }
 
-export const mm = (unit: LengthUnit, v: number | undefined) => (v === undefined ? '—' : fmtLength(v, unit));
-export const deg = (v: number | undefined) => (v === undefined ? '—' : fmtDeg(v));
+export const mm = (unit: LengthUnit, v: number | undefined) => (v === undefined ? '—' : lengthReadoutText(v, unit));
+export const deg = (v: number | undefined) => (v === undefined ? '—' : angleText(v));
 
 /** An operation's report values as readouts, named from their keys (unit suffixes read as units). */
 export function reportReadouts(unit: LengthUnit) {
@@ -92,7 +92,7 @@ export function reportReadouts(unit: LengthUnit) {
 			const words = k.replace(/([A-Z])/g, ' $1').replace(/ (Mm2|Mm|Rad|Deg)$/, '').toLowerCase();
 			return {
 				label: words.charAt(0).toUpperCase() + words.slice(1),
-				value: k.endsWith('Mm2') ? fmtArea(x, unit) : k.endsWith('Mm') ? mm(unit, x) : k.endsWith('Rad') ? fmtDeg(x) : Number.isInteger(x) ? String(x) : x.toFixed(2)
+				value: k.endsWith('Mm2') ? areaText(x, unit) : k.endsWith('Mm') ? mm(unit, x) : k.endsWith('Rad') ? angleText(x) : Number.isInteger(x) ? String(x) : x.toFixed(2)
 			};
 		});
 }

@@ -3,7 +3,7 @@ import type { SeamPairInfo } from '../api';
 import type { PieceEdit } from '../doc';
 import type { Hit, Snap, SnapOptions } from '../hit';
 import type { DocEdit, Merge, StepExtras } from '../state/doc-edits';
-import type { LengthUnit } from '../units';
+import type { LengthUnit } from '$lib/pattern/measurements/units';
 import type { SelectedPart } from '../state/selection.svelte';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
 

@@ -1,5 +1,5 @@
 import { vecDistance, type Vec } from '$lib/geometry';
-import { fmtLength } from '../units';
+import { lengthReadoutText } from '$lib/pattern/measurements/units';
 import type { MoveContext } from './context';
 import { editableSelected, movePiece, pickPiece, stepPreview, type OnPiece } from './common';
 import { emptyPreview, NOTHING, outcome, type CommitOutcome, type MoveDef, type OverlayItem } from './types';
@@ -37,7 +37,7 @@ export const foldMove: MoveDef<FoldState> = {
 		if (!movePiece(ctx, st) || !a) return null;
 		const overlay: OverlayItem[] = [{ kind: 'point', at: a, tone: 'preview' }, ...(b ? [{ kind: 'line' as const, points: [a, b], tone: 'preview' as const }] : [])];
 		if (!b) return { ...emptyPreview(st.pieceKey), overlay };
-		return stepPreview(ctx, st, { op: 'fold', params: { from: a, to: b } }, overlay, () => [{ label: 'Fold length', value: fmtLength(vecDistance(a, b), ctx.unit) }]);
+		return stepPreview(ctx, st, { op: 'fold', params: { from: a, to: b } }, overlay, () => [{ label: 'Fold length', value: lengthReadoutText(vecDistance(a, b), ctx.unit) }]);
 	}
 };
 

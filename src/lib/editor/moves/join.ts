@@ -1,7 +1,7 @@
 import { join } from '$lib/pattern/panels';
 import { pieceMetrics } from '$lib/pattern/metrics';
 import { docMerge } from '../state/doc-edits';
-import { fmtArea, fmtDeg } from '../units';
+import { areaText, angleText } from '$lib/pattern/measurements/units';
 import type { MoveContext } from './context';
 import { chosenPair, firstUsablePair, selectedPairOr, opPieces, pairOverlay, seamPickDown, type SeamPick } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem } from './types';
@@ -77,10 +77,10 @@ export const joinMove: MoveDef<JoinState> = {
 			error: null,
 			readouts: [
 				{ label: 'Seam', value: c.label },
-				{ label: 'Wedge at the divergence point', value: fmtDeg(angle) },
+				{ label: 'Wedge at the divergence point', value: angleText(angle) },
 				{ label: st.wedge === 'close' ? 'Closed; opened as a dart' : 'Kept as a dart', value: dart ? dart.id : 'none' },
-				{ label: 'Area before', value: fmtArea(r.report.values.areaBeforeMm2 ?? 0, ctx.unit) },
-				{ label: 'Area after', value: fmtArea(pieceMetrics(r.pieces[0]).areaMm2, ctx.unit) }
+				{ label: 'Area before', value: areaText(r.report.values.areaBeforeMm2 ?? 0, ctx.unit) },
+				{ label: 'Area after', value: areaText(pieceMetrics(r.pieces[0]).areaMm2, ctx.unit) }
 			],
 			ledger: r.ledgerEntries,
 			overlay,

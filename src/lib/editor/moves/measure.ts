@@ -1,6 +1,6 @@
 import { outlineNearestPoint, outlinePerimeter, pathLengthAt, vecAdd, vecDistance, type Vec } from '$lib/geometry';
 import type { Snap } from '../hit';
-import { fmtLength } from '../units';
+import { lengthReadoutText } from '$lib/pattern/measurements/units';
 import type { MoveContext } from './context';
 import type { MoveDef, MovePreview, OverlayItem, Readout } from './types';
 
@@ -20,8 +20,8 @@ function along(ctx: MoveContext, a: Snap, b: Snap): Readout[] {
 	const total = outlinePerimeter(g.outline);
 	const fwd = (((pathLengthAt(g.outline, nb) - pathLengthAt(g.outline, na)) % total) + total) % total;
 	return [
-		{ label: 'Along the outline (forward)', value: fmtLength(fwd, ctx.unit) },
-		{ label: 'Along the outline (back)', value: fmtLength(total - fwd, ctx.unit) }
+		{ label: 'Along the outline (forward)', value: lengthReadoutText(fwd, ctx.unit) },
+		{ label: 'Along the outline (back)', value: lengthReadoutText(total - fwd, ctx.unit) }
 	];
 }
 
@@ -41,8 +41,10 @@ export const measureMove: MoveDef<MeasureState> = {
 		return true;
 	},
 	move(ctx, st, p) {
-		st.points = [st.points[0], p.snap.world];
-		ctx.showSnap(p.snap);
+		// the second end also snaps to 15° steps from the first
+		const snap = st.points[0] ? ctx.snapAt(p.world, { angleFrom: st.points[0] }) : p.snap;
+		st.points = [st.points[0], snap.world];
+		ctx.showSnap(snap);
 	},
 	up(ctx) {
 		ctx.showSnap(null);
@@ -55,13 +57,13 @@ export const measureMove: MoveDef<MeasureState> = {
 		if (b) {
 			const d = vecDistance(a, b);
 			readouts.push(
-				{ label: 'Straight distance', value: fmtLength(d, ctx.unit) },
-				{ label: 'Across (x)', value: fmtLength(Math.abs(b.x - a.x), ctx.unit) },
-				{ label: 'Down (y)', value: fmtLength(Math.abs(b.y - a.y), ctx.unit) },
+				{ label: 'Straight distance', value: lengthReadoutText(d, ctx.unit) },
+				{ label: 'Across (x)', value: lengthReadoutText(Math.abs(b.x - a.x), ctx.unit) },
+				{ label: 'Down (y)', value: lengthReadoutText(Math.abs(b.y - a.y), ctx.unit) },
 				...along(ctx, ctx.snapAt(a, { grid: false }), ctx.snapAt(b, { grid: false }))
 			);
 			const mid: Vec = vecAdd(a, { x: (b.x - a.x) / 2, y: (b.y - a.y) / 2 });
-			overlay.push({ kind: 'line', points: [a, b], tone: 'measure' }, { kind: 'point', at: b, tone: 'measure' }, { kind: 'label', at: mid, text: fmtLength(d, ctx.unit) });
+			overlay.push({ kind: 'line', points: [a, b], tone: 'measure' }, { kind: 'point', at: b, tone: 'measure' }, { kind: 'label', at: mid, text: lengthReadoutText(d, ctx.unit) });
 		}
 		return { pieceKey: null, piece: null, error: null, readouts, ledger: [], overlay, notes: [], canCommit: false };
 	}

@@ -6,7 +6,7 @@ import { pieceSeams } from '$lib/pattern/piece-seams';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { reshapeChanges, reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
 import { editorApply } from '../ops';
-import { fmtArea, fmtLength, fmtLengthSigned } from '../units';
+import { areaText, lengthReadoutText, lengthDifferenceText } from '$lib/pattern/measurements/units';
 import { editableSelected, movePiece, type OnPiece } from './common';
 import type { MoveContext } from './context';
 import { emptyPreview, NOTHING, outcome, type CommitOutcome, type MoveDef, type MovePreview, type OverlayItem, type Readout } from './types';
@@ -159,13 +159,13 @@ function reshapePreview(ctx: MoveContext, st: ReshapeState): MovePreview | null 
 	const mb = pieceMetrics(run.piece);
 	const ma = pieceMetrics(run.r.piece);
 	const readouts: Readout[] = [
-		{ label: 'Area outside the darts', value: `${fmtArea(ma.areaMm2, u)} (${ma.areaMm2 >= mb.areaMm2 ? '+' : '−'}${fmtArea(Math.abs(ma.areaMm2 - mb.areaMm2), u)})` },
-		{ label: 'Seam length, darts folded out', value: `${fmtLength(ma.seamLengthMm, u)} (${fmtLengthSigned(ma.seamLengthMm - mb.seamLengthMm, u)})` }
+		{ label: 'Area outside the darts', value: `${areaText(ma.areaMm2, u)} (${ma.areaMm2 >= mb.areaMm2 ? '+' : '−'}${areaText(Math.abs(ma.areaMm2 - mb.areaMm2), u)})` },
+		{ label: 'Seam length, darts folded out', value: `${lengthReadoutText(ma.seamLengthMm, u)} (${lengthDifferenceText(ma.seamLengthMm - mb.seamLengthMm, u)})` }
 	];
 	const before = pieceSeams(run.piece);
 	for (const s of pieceSeams(run.r.piece)) {
 		const b = before.find((x) => x.name === s.name);
-		if (b && Math.abs(b.lengthMm - s.lengthMm) > 0.05) readouts.push({ label: s.name, value: `${fmtLength(s.lengthMm, u)} (${fmtLengthSigned(s.lengthMm - b.lengthMm, u)})`, tone: 'warn' });
+		if (b && Math.abs(b.lengthMm - s.lengthMm) > 0.05) readouts.push({ label: s.name, value: `${lengthReadoutText(s.lengthMm, u)} (${lengthDifferenceText(s.lengthMm - b.lengthMm, u)})`, tone: 'warn' });
 	}
 	// the ledger shows the entries the change would be declared with (as suggested; the form may change them)
 	const declared = reshapeDeclaredEntries(run.changes);

@@ -3,7 +3,7 @@ import { divergenceProposals } from '../divergence-marking';
 import { internalLineNear } from '../hit';
 import { editorSeparate } from '../ops';
 import { docSeparate } from '../state/doc-edits';
-import { fmtArea } from '../units';
+import { areaText } from '$lib/pattern/measurements/units';
 import { editableSelected, movePiece, type OnPiece } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef } from './types';
 
@@ -54,7 +54,7 @@ export const separateMove: MoveDef<SeparateState> = {
 			piece: null,
 			pieces: r.pieces,
 			error: null,
-			readouts: r.pieces.map((q, i) => ({ label: `Piece ${i + 1} area`, value: fmtArea(pieceMetrics(q).areaMm2, ctx.unit) })),
+			readouts: r.pieces.map((q, i) => ({ label: `Piece ${i + 1} area`, value: areaText(pieceMetrics(q).areaMm2, ctx.unit) })),
 			ledger: r.ledgerEntries,
 			overlay: [],
 			notes: [

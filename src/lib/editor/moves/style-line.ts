@@ -66,7 +66,10 @@ export const styleLineMove: MoveDef<StyleLineState> = {
 			ctx.showSnap(snap);
 			q = snap.local ?? localOf(ctx, st, p.world);
 		} else {
-			const snap = ctx.snapAt(p.world);
+			// a handle snaps to 15° steps from the end it belongs to
+			const end = st.handles[i === 1 ? 0 : 3];
+			const o = ctx.piece(st.pieceKey)?.offset ?? { x: 0, y: 0 };
+			const snap = ctx.snapAt(p.world, { angleFrom: end ? { x: end.x + o.x, y: end.y + o.y } : null });
 			ctx.showSnap(snap.kind === 'free' ? null : snap);
 			q = localOf(ctx, st, snap.world);
 		}

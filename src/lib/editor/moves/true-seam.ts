@@ -3,7 +3,7 @@ import { ledgerEntry } from '$lib/pattern/ledger';
 import { trueSeam } from '$lib/pattern/panels';
 import { reshapeChanges } from '$lib/pattern/reshape-declaration';
 import type { Piece } from '$lib/pattern/piece-schema';
-import { fmtLength, fmtLengthSigned } from '../units';
+import { lengthReadoutText, lengthDifferenceText } from '$lib/pattern/measurements/units';
 import type { SeamEdit } from '../doc';
 import type { MoveContext } from './context';
 import { chosenPair, firstUsablePair, selectedPairOr, opPieces, pairOverlay, pathEnd, pathStart, seamPickDown, type SeamPick } from './seams';
@@ -114,7 +114,7 @@ export const trueSeamMove: MoveDef<TrueSeamState> = {
 		overlay.push({ kind: 'line', points: seam.a, tone: 'select' }, { kind: 'line', points: seam.b, tone: 'measure', dashed: true });
 		const r = run.r;
 		if (!r.ok) return { ...emptyPreview(null, r.error.message), overlay, overlayWorld: true };
-		const mm = (v: number) => fmtLength(v, ctx.unit);
+		const mm = (v: number) => lengthReadoutText(v, ctx.unit);
 		const side = run.adjust?.side === 'b' ? 1 : 0;
 		const key = run.keys[side];
 		if (run.adjust) {
@@ -133,13 +133,13 @@ export const trueSeamMove: MoveDef<TrueSeamState> = {
 				{ label: 'Seam', value: run.c.label },
 				{ label: 'Edge a (darts folded out)', value: mm(b.aMm) },
 				{ label: 'Edge b (darts folded out)', value: mm(b.bMm) },
-				{ label: 'Difference a − b', value: fmtLengthSigned(b.differenceMm, ctx.unit), tone: b.withinTolerance ? 'ok' : 'bad' },
+				{ label: 'Difference a − b', value: lengthDifferenceText(b.differenceMm, ctx.unit), tone: b.withinTolerance ? 'ok' : 'bad' },
 				{ label: 'Allowed ease', value: mm(b.allowedEaseMm) },
 				{ label: 'Reads', value: b.withinTolerance ? 'true' : `${mm(b.deviationMm)} off`, tone: b.withinTolerance ? ('ok' as const) : ('bad' as const) },
 				...(run.adjust
 					? [
-							{ label: 'After: difference a − b', value: fmtLengthSigned(a.differenceMm, ctx.unit), tone: a.withinTolerance ? ('ok' as const) : ('bad' as const) },
-							{ label: 'After: edge moved by', value: fmtLengthSigned(a.aMm + a.bMm - b.aMm - b.bMm, ctx.unit) }
+							{ label: 'After: difference a − b', value: lengthDifferenceText(a.differenceMm, ctx.unit), tone: a.withinTolerance ? ('ok' as const) : ('bad' as const) },
+							{ label: 'After: edge moved by', value: lengthDifferenceText(a.aMm + a.bMm - b.aMm - b.bMm, ctx.unit) }
 						]
 					: [])
 			],

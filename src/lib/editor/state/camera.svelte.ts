@@ -1,6 +1,6 @@
 import type { BoundingBox, Vec } from '$lib/geometry';
 import { PAPER_GRID_KEY, type PaperGrid } from '../paint-grid';
-import type { LengthUnit } from '../units';
+import type { LengthUnit } from '$lib/pattern/measurements/units';
 import { CALIBRATION_KEY, DEFAULT_PX_PER_MM, fitBox, MAX_TRUE_FACTOR, screenToWorld, UNIT_KEY, worldToScreen, zoomAbout, type View } from '../view';
 
 /** Where the remembered settings of this browser live (localStorage in the page, nothing in tests). */

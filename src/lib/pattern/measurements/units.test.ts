@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import Fraction from 'fraction.js';
 import { describe, expect, it } from 'vitest';
-import { areaDifferenceText, areaText, inchesEighthsText, inchFractionParse, lengthDifferenceText, lengthFieldText, lengthParse, lengthReadoutText, lengthText, mmFromInches } from './units';
+import { angleDifferenceText, angleText, areaDifferenceText, areaText, lengthFieldRounded, lengthSignedParse, inchesEighthsText, inchFractionParse, lengthDifferenceText, lengthFieldText, lengthParse, lengthReadoutText, lengthText, mmFromInches } from './units';
 
 describe('units', () => {
 	it('converts inches to mm exactly (1 in = 25.4 mm by definition)', () => {
@@ -99,5 +99,27 @@ describe('what was typed is stored exactly, whatever unit it is shown in', () =>
 		expect(areaText(645.16 * 2.5, 'in')).toBe('2.50 in²');
 		expect(areaDifferenceText(-612, 'cm')).toBe('−6.1 cm²');
 		expect(areaDifferenceText(612, 'mm')).toBe('+612 mm²');
+	});
+});
+
+describe('lengths typed in number fields and angles on screen', () => {
+	it('reads a typed length that may be negative, in the field unit or with its own', () => {
+		expect(lengthSignedParse('4 7/8', 'in')).toBeCloseTo(123.825, 6);
+		expect(lengthSignedParse('12,5', 'cm')).toBe(125);
+		expect(lengthSignedParse('−15', 'mm')).toBe(-15);
+		expect(lengthSignedParse('2 cm', 'mm')).toBe(20);
+		expect(lengthSignedParse('abc', 'mm')).toBeNull();
+	});
+	it('shows a field value rounded to what the unit shows, and reads it back to that rounding', () => {
+		expect(lengthFieldRounded(30, 'in')).toBe('1 1/8');
+		expect(lengthSignedParse(lengthFieldRounded(30, 'in'), 'in')).toBeCloseTo(28.575, 6);
+		expect(lengthFieldRounded(12.34, 'mm')).toBe('12.3');
+		expect(lengthFieldRounded(12.34, 'cm')).toBe('1.2');
+	});
+	it('shows angles in degrees with a true minus sign', () => {
+		expect(angleText(Math.PI / 12)).toBe('15.00°');
+		expect(angleText(-Math.PI / 180, 1)).toBe('−1.0°');
+		expect(angleDifferenceText(Math.PI / 180)).toBe('+1.00°');
+		expect(angleDifferenceText(-Math.PI / 360)).toBe('−0.50°');
 	});
 });

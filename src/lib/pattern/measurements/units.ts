@@ -173,3 +173,35 @@ export function areaText(mm2: number, unit: LengthUnit): string {
 export function areaDifferenceText(mm2: number, unit: LengthUnit): string {
 	return `${mm2 > 0 ? '+' : mm2 < 0 ? MINUS : '±'}${areaText(Math.abs(mm2), unit)}`;
 }
+
+/**
+ * A length as the text of a number field in `unit`, rounded as a field shows it (0.1 mm, 1 mm in cm,
+ * eighths of an inch), no unit written: 30 mm in inches → "1 1/8". For lengths that must read back
+ * exactly, `lengthFieldText`.
+ */
+export function lengthFieldRounded(mm: number, unit: LengthUnit): string {
+	if (unit === 'mm') return String(Math.round(mm * 10) / 10);
+	if (unit === 'cm') return String(Math.round(mm) / MM_PER_CM);
+	return inchesEighthsText(mm / MM_PER_INCH);
+}
+
+/** A typed length that may be negative ("−3", "4 7/8", "12,5", "2 cm") in mm; null when it is not a length. */
+export function lengthSignedParse(text: string, unit: LengthUnit): number | null {
+	const t = text.trim();
+	const negative = /^[-−–]/.test(t);
+	const parsed = lengthParse(negative ? t.replace(/^[-−–]\s*/, '') : t, unit);
+	if (!parsed) return null;
+	return negative ? -parsed.mm : parsed.mm;
+}
+
+/** An angle for readouts, in degrees: "12.34°", "−3.10°". */
+export function angleText(rad: number, digits = 2): string {
+	const deg = (rad * 180) / Math.PI;
+	const s = Math.abs(deg).toFixed(digits);
+	return `${deg < 0 && Number(s) !== 0 ? MINUS : ''}${s}°`;
+}
+
+/** A signed angle difference in degrees: "+1.25°", "−0.50°". */
+export function angleDifferenceText(rad: number, digits = 2): string {
+	return `${rad < 0 ? MINUS : '+'}${Math.abs((rad * 180) / Math.PI).toFixed(digits)}°`;
+}
