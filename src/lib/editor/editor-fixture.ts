@@ -1,7 +1,7 @@
 import type { Vec } from '$lib/geometry';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { SeamPairInfo } from './api';
-import type { PieceEdit } from './doc';
+import type { EditorDoc, PieceEdit } from './doc';
 import { EditorState } from './editor-state.svelte';
 import type { Hit } from './hit';
 import type { PointerInfo } from './moves/types';
@@ -35,7 +35,39 @@ export function editorWith(pieces: readonly { geometry: Piece; key?: string; off
 	s.camera.viewW = 1200;
 	s.camera.viewH = 800;
 	s.camera.scale = 1;
+	made.push({ s, start: s.docs.doc });
 	return s;
+}
+
+const made: { s: EditorState; start: EditorDoc }[] = [];
+
+/** The editors made since the last call (and the document each began with); the list starts again. */
+export function editorsMade(): { s: EditorState; start: EditorDoc }[] {
+	return made.splice(0);
+}
+
+/**
+ * Undo every step of the editor's history, then redo them all: each undo must land on the document the
+ * step started from (the first on the document the editor began with), each redo on the one it left.
+ * The reason it does not, or null.
+ */
+export function undoRedoRoundTrip(s: EditorState, start: EditorDoc): string | null {
+	s.setMove('select');
+	while (s.docs.future.length) s.redo();
+	const end = s.docs.doc;
+	const before = s.docs.past.map((e) => e.doc);
+	const after = before.length ? [...before.slice(1), end] : [];
+	if (before.length && before[0] !== start) return 'the first undo step does not start from the document the editor began with';
+	for (let i = before.length - 1; i >= 0; i--) {
+		s.undo();
+		if (s.docs.doc !== before[i]) return `undo ${before.length - i} did not go back to the document before “${s.docs.future[0]?.label}”`;
+	}
+	if (s.docs.past.length) return 'steps are left to undo';
+	for (let i = 0; i < after.length; i++) {
+		s.redo();
+		if (s.docs.doc !== after[i]) return `redo ${i + 1} did not come back to the document after “${s.docs.past.at(-1)?.label}”`;
+	}
+	return s.docs.future.length ? 'steps are left to redo' : null;
 }
 
 /** A pointer at a world point, with what lies under it as the canvas would find it. */

@@ -1,4 +1,4 @@
-import { boundingBoxUnion, BOUNDING_BOX_EMPTY, pathBoundingBox, type BoundingBox, type Vec } from '$lib/geometry';
+import type { BoundingBox, Vec } from '$lib/geometry';
 import { ledgerBalance, type LedgerEntry } from '$lib/pattern/ledger';
 import { pieceMetrics } from '$lib/pattern/metrics';
 import { recipeStepApply } from '$lib/pattern/recipe/registry';
@@ -6,18 +6,17 @@ import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
 import { versionVerify } from '$lib/pattern/verify/version-verify';
 import { styleLoad, type SeamPairInfo } from './api';
 import type { EditorDoc } from './doc';
-import { pieceDrawing } from './drawing';
 import { PAPER_GRID_MM } from './paint-grid';
 import { hitTest, snapPoint, type Hit, type Snap, type SnapOptions } from './hit';
 import type { MoveContext } from './moves/context';
 import { moveDef, MOVES, type MoveState } from './moves/registry';
 import type { CommitOutcome, MoveId, MovePreview, PointerInfo } from './moves/types';
 import { Camera, type SettingsStore } from './state/camera.svelte';
-import { divergenceMark } from './divergence-marking';
 import type { Offer } from './moves/offers';
+import { offerStart } from './moves/offer-start';
 import { declaredOf, docStepApply, recipeOf, type DocEdit, type StepExtras } from './state/doc-edits';
 import { DocumentStore } from './state/document.svelte';
-import { piecesLaidOut } from './state/layout';
+import { piecesBoxOf, piecesLaidOut } from './state/layout';
 import { SaveSession } from './state/save-session.svelte';
 import { Selection } from './state/selection.svelte';
 
@@ -99,6 +98,8 @@ export class EditorState {
 			togglePanel: (key) => this.selection.togglePanel(key),
 			apply: (key, step, extras) => this.apply(key, step, extras),
 			edit: (make) => this.edit((doc) => make(doc, Date.now().toString(36))),
+			dragChange: (make) => this.dragChange(make),
+			dragEnd: (label) => this.dragEnd(label),
 			announce: (t) => (this.announce = t)
 		};
 	}
@@ -106,31 +107,43 @@ export class EditorState {
 	// ---------- derived ----------
 	selected = $derived(this.docs.visible.find((p) => p.key === this.selection.pieceKey) ?? null);
 	preview = $derived.by<MovePreview | null>(() => moveDef(this.move).preview?.(this.ctx, this.move) ?? null);
+	/** Undo and redo have something to do: in the document's history, or in the move under way (a reshape's drags). */
+	canUndo = $derived(this.docs.past.length > 0 || (this.move.id === 'reshape' && this.move.past.length > 0));
+	canRedo = $derived(this.docs.future.length > 0 || (this.move.id === 'reshape' && this.move.future.length > 0));
 	/** A piece being moved on the table and where it would go. */
-	moving = $derived.by(() => (this.move.id === 'select' && this.move.drag?.offset ? { key: this.move.drag.key, offset: this.move.drag.offset } : null));
+	moving = $derived.by(() => {
+		const d = this.move.id === 'select' ? this.move.drag : null;
+		const p = d?.moved ? this.docs.piece(d.key) : null;
+		return d && p ? { key: d.key, offset: p.offset } : null;
+	});
 
+	/** The selected piece's shape and steps: the same values while only its place on the table changes (a drag). */
+	private selGeometry = $derived(this.selected?.geometry ?? null);
+	private selSteps = $derived(this.selected?.steps ?? null);
+	private selBase = $derived(this.selected?.base ?? null);
 	/** Metrics of the selected piece (the preview's result while a move previews on it). */
 	selectedMetrics = $derived.by(() => {
-		const p = this.selected;
-		if (!p) return null;
+		const g = this.selGeometry;
+		if (!g) return null;
 		const pv = this.preview;
-		return pieceMetrics(pv?.piece && pv.pieceKey === p.key ? pv.piece : p.geometry);
+		return pieceMetrics(pv?.piece && pv.pieceKey === this.selection.pieceKey ? pv.piece : g);
 	});
 	/** Ledger entries since the base version (with the preview's, if it previews on the selected piece). */
 	selectedLedger = $derived.by<LedgerEntry[]>(() => {
-		const p = this.selected;
-		if (!p) return [];
-		const entries = p.steps.flatMap((s) => s.ledger);
+		const steps = this.selSteps;
+		if (!steps) return [];
+		const entries = steps.flatMap((s) => s.ledger);
 		const pv = this.preview;
-		if (pv?.piece && pv.pieceKey === p.key) entries.push(...pv.ledger);
+		if (pv?.piece && pv.pieceKey === this.selection.pieceKey) entries.push(...pv.ledger);
 		return entries;
 	});
 	selectedBalance = $derived(ledgerBalance(this.selectedLedger));
 	/** The checks the server will run on save (versionVerify in the browser). */
 	selectedVerify = $derived.by(() => {
-		const p = this.selected;
-		if (!p || p.steps.length === 0 || !p.base) return null;
-		return versionVerify(p.base, p.geometry, recipeOf(p), recipeStepApply, declaredOf(p));
+		const [g, steps, base] = [this.selGeometry, this.selSteps, this.selBase];
+		if (!g || !steps || steps.length === 0 || !base) return null;
+		const p = { steps };
+		return versionVerify(base, g, recipeOf(p), recipeStepApply, declaredOf(p));
 	});
 
 	// ---------- loading ----------
@@ -168,22 +181,10 @@ export class EditorState {
 	snapAt(world: Vec, opts: SnapOptions = {}): Snap {
 		return snapPoint(this.docs.placed, world, this.camera.tolMm(9), { grid: true, ...opts }, { gridMm: PAPER_GRID_MM[this.camera.paperGrid] });
 	}
-	private boxOf(outer: boolean): BoundingBox {
-		let box = BOUNDING_BOX_EMPTY;
-		for (const p of this.docs.visible) {
-			const b = outer ? pieceDrawing(p.geometry).outerBox : pathBoundingBox(p.geometry.outline);
-			box = boundingBoxUnion(box, { minX: b.minX + p.offset.x, minY: b.minY + p.offset.y, maxX: b.maxX + p.offset.x, maxY: b.maxY + p.offset.y });
-		}
-		return box;
-	}
 	/** Everything on the table, cut lines included (for fitting the view). */
-	contentBox(): BoundingBox {
-		return this.boxOf(true);
-	}
+	contentBox = (): BoundingBox => piecesBoxOf(this.docs.visible, true);
 	/** A world-space bounding box of every visible piece's stitching line (for rulers and tests). */
-	piecesBox(): BoundingBox {
-		return this.boxOf(false);
-	}
+	piecesBox = (): BoundingBox => piecesBoxOf(this.docs.visible, false);
 
 	// ---------- changes (each one undo step) ----------
 	private edit(make: (doc: EditorDoc) => DocEdit): string | null {
@@ -195,10 +196,27 @@ export class EditorState {
 		if (r.select !== undefined) this.selection.piece(r.select);
 		return null;
 	}
+	/** A drag's change: the document follows the pointer inside an open history mark. */
+	private dragChange(make: (doc: EditorDoc) => DocEdit): string | null {
+		const r = make(this.docs.doc);
+		if (!r.ok) return r.error;
+		if (!this.docs.marking) this.docs.begin();
+		this.docs.update(r.doc);
+		return null;
+	}
+	/** The drag ended: one undo step back to the document at its mark. */
+	private dragEnd(label: string) {
+		if (!this.docs.commit(label)) return;
+		this.save.changed();
+		this.announce = label;
+	}
 	apply(key: string, step: RecipeStepData, extras?: StepExtras): string | null {
 		return this.edit((doc) => docStepApply(doc, key, step, extras));
 	}
 	undo() {
+		// inside a move, its own last step first (a reshape's last drag)
+		const inMove = this.docs.marking ? null : (moveDef(this.move).undo?.(this.ctx, this.move) ?? null);
+		if (inMove !== null) return void (this.announce = `Undone: ${inMove}`);
 		const label = this.docs.undo();
 		if (label === null) return;
 		this.cancelMove();
@@ -206,6 +224,8 @@ export class EditorState {
 		this.selection.fix(this.docs.visible);
 	}
 	redo() {
+		const inMove = this.docs.marking ? null : (moveDef(this.move).redo?.(this.ctx, this.move) ?? null);
+		if (inMove !== null) return void (this.announce = `Redone: ${inMove}`);
 		const label = this.docs.redo();
 		if (label === null) return;
 		this.cancelMove();
@@ -225,6 +245,7 @@ export class EditorState {
 	}
 	/** Start the move over (what was picked is dropped, the piece stays). */
 	cancelMove() {
+		this.docs.rollback();
 		this.move = moveDef(this.move).fresh(this.ctx);
 		this.selection.snapShown = null;
 		this.moveMessage = null;
@@ -232,6 +253,7 @@ export class EditorState {
 	escape() {
 		if (this.helpOpen) this.helpOpen = false;
 		else if (this.calibrateOpen) this.calibrateOpen = false;
+		else if (this.docs.marking) this.cancelMove();
 		else if (this.move.id !== 'select' && moveDef(this.move).started(this.move)) this.cancelMove();
 		else if (this.move.id !== 'select') this.setMove('select');
 		else this.selection.clearPart();
@@ -264,21 +286,7 @@ export class EditorState {
 	}
 	/** An offered move chosen (its button, its key): it starts on what is selected. */
 	offerStart(o: Offer) {
-		if (o.id === 'divergence_point') {
-			const key = this.selection.pieceKey;
-			const apexId = this.selection.apexId;
-			if (key && apexId) this.moveMessage = divergenceMark(this.ctx, key, apexId);
-			return;
-		}
-		if (o.id === 'pair_with') {
-			this.setMove('true_seam');
-			if (this.move.id === 'true_seam' && o.seam) {
-				this.move.seamPairId = null;
-				this.move.edgePicks = [{ pieceKey: o.seam.pieceKey, at: o.seam.from }, { pieceKey: o.seam.pieceKey, at: o.seam.to }];
-			}
-			return;
-		}
-		this.setMove(o.id);
+		offerStart(this, o);
 	}
 	/** A piece picked in a form: the move starts over on it. */
 	moveOnPiece(key: string) {

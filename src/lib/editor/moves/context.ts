@@ -52,6 +52,10 @@ export interface MoveContext {
 	apply(key: string, step: RecipeStepData, extras?: StepExtras): string | null;
 	/** Any other change to the document (separate, join, carry, laying out): one undo step. */
 	edit(make: (doc: import('../doc').EditorDoc, stamp: string) => DocEdit): string | null;
+	/** A change made again and again while the pointer drags: the document follows, no undo step yet; an error message or null. */
+	dragChange(make: (doc: import('../doc').EditorDoc) => DocEdit): string | null;
+	/** The drag ended: all it changed is one undo step under this name (none if it changed nothing). */
+	dragEnd(label: string): void;
 	/** Said to screen readers (and shown nowhere else). */
 	announce(text: string): void;
 }

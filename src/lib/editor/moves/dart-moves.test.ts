@@ -1,9 +1,14 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { vecLerp } from '$lib/geometry';
 import { frontBodiceBlock, FRONT_BLOCK_BUST_POINT } from '$lib/pattern/fixtures/front-bodice-block';
-import { dragThrough, editorWith } from '../editor-fixture';
+import { dragThrough, editorWith, editorsMade, undoRedoRoundTrip } from '../editor-fixture';
 import type { MoveStateOf } from './registry';
 import type { MoveId } from './types';
+
+// every change a test made is undone and redone to the same documents
+afterEach(() => {
+	for (const { s, start } of editorsMade()) expect(undoRedoRoundTrip(s, start)).toBeNull();
+});
 
 /** The moves on a dart (pivot, share, pleat, pull back, cap), on the front bodice block, without a browser. */
 

@@ -1,11 +1,16 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { vecLerp } from '$lib/geometry';
 import { frontBodiceBlock, FRONT_BLOCK_BUST_POINT } from '$lib/pattern/fixtures/front-bodice-block';
 import { rectanglePiece } from '$lib/pattern/panels/fixtures/simple-pieces';
 import { twoPanelWedge } from '$lib/pattern/panels/fixtures/two-panel-wedge';
 import type { SeamPairInfo } from '../api';
-import { clickOn, editorWith, pointerAt } from '../editor-fixture';
+import { clickOn, editorWith, editorsMade, pointerAt, undoRedoRoundTrip } from '../editor-fixture';
 import { offersFor } from './offers';
+
+// every change a test made is undone and redone to the same documents
+afterEach(() => {
+	for (const { s, start } of editorsMade()) expect(undoRedoRoundTrip(s, start)).toBeNull();
+});
 
 /** Object first: what is clicked on the table is selected, and the moves that apply to it are offered. */
 

@@ -1,10 +1,15 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { rectanglePiece } from '$lib/pattern/panels/fixtures/simple-pieces';
 import { twoPanelWedge } from '$lib/pattern/panels/fixtures/two-panel-wedge';
 import type { SeamPairInfo } from '../api';
-import { dragThrough, editorWith } from '../editor-fixture';
+import { dragThrough, editorWith, editorsMade, undoRedoRoundTrip } from '../editor-fixture';
 import type { MoveStateOf } from './registry';
 import type { MoveId } from './types';
+
+// every change a test made is undone and redone to the same documents
+afterEach(() => {
+	for (const { s, start } of editorsMade()) expect(undoRedoRoundTrip(s, start)).toBeNull();
+});
 
 /** The moves across panels (join, carry, true seam), on two panels sewn from the top to a divergence point D. */
 

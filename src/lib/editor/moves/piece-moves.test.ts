@@ -1,8 +1,13 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { rectanglePiece } from '$lib/pattern/panels/fixtures/simple-pieces';
-import { clickOn, dragThrough, editorWith, pointerAt } from '../editor-fixture';
+import { clickOn, dragThrough, editorWith, editorsMade, pointerAt, undoRedoRoundTrip } from '../editor-fixture';
 import type { MoveStateOf } from './registry';
 import type { MoveId } from './types';
+
+// every change a test made is undone and redone to the same documents
+afterEach(() => {
+	for (const { s, start } of editorsMade()) expect(undoRedoRoundTrip(s, start)).toBeNull();
+});
 
 /** The moves on a whole piece (style line, separate, spread, notch, grain, fold, allowance) and the table's own (select, tape measure). */
 
@@ -149,10 +154,31 @@ describe('allowance', () => {
 describe('the table’s own moves', () => {
 	it('select: a piece dragged on the table moves in one undo step', () => {
 		const { s } = editing('select');
-		dragThrough(s, 'panel', [{ x: 100, y: 150 }, { x: 120, y: 160 }, { x: 150, y: 170 }]);
+		// the piece follows the pointer, so the pointer is given on the table (the piece lies at 100, 50)
+		const path = [{ x: 200, y: 200 }, { x: 220, y: 210 }, { x: 250, y: 220 }].map((w) => pointerAt(s, w));
+		s.pointerDown(path[0]);
+		s.pointerMove(path[1]);
+		s.pointerMove(path[2]);
+		s.pointerUp(path[2], true);
 		expect(s.docs.piece('panel')!.offset).toEqual({ x: 150, y: 70 });
 		expect(s.docs.past).toHaveLength(1);
 		expect(s.moving).toBeNull();
+		s.undo();
+		expect(s.docs.piece('panel')!.offset).toEqual({ x: 100, y: 50 });
+		s.redo();
+		expect(s.docs.piece('panel')!.offset).toEqual({ x: 150, y: 70 });
+	});
+	it('select: while a piece is dragged the document follows it inside a mark; Escape puts it back with no undo step', () => {
+		const { s } = editing('select');
+		const key = 'panel';
+		s.pointerDown(pointerAt(s, { x: 200, y: 200 }));
+		s.pointerMove(pointerAt(s, { x: 230, y: 200 }));
+		expect(s.docs.marking).toBe(true);
+		expect(s.moving?.offset).toEqual({ x: 130, y: 50 });
+		expect(s.docs.piece(key)!.offset).toEqual({ x: 130, y: 50 });
+		s.escape();
+		expect(s.docs.piece(key)!.offset).toEqual({ x: 100, y: 50 });
+		expect(s.docs.past).toHaveLength(0);
 	});
 	it('tape measure: the straight distance between two points, and along the outline', () => {
 		const { s } = editing('measure');

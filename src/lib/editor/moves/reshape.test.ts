@@ -1,9 +1,14 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { rectanglePiece } from '$lib/pattern/panels/fixtures/simple-pieces';
 import { reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
-import { dragThrough, editorWith } from '../editor-fixture';
+import { dragThrough, editorWith, editorsMade, undoRedoRoundTrip } from '../editor-fixture';
 import { reshapeApply, reshapeRun } from './reshape';
 import type { MoveStateOf } from './registry';
+
+// every change a test made is undone and redone to the same documents
+afterEach(() => {
+	for (const { s, start } of editorsMade()) expect(undoRedoRoundTrip(s, start)).toBeNull();
+});
 
 /** Reshape by hand: outline points dragged with snapping, the change declared before it is applied. */
 
@@ -55,5 +60,33 @@ describe('reshape by hand', () => {
 		const run = reshapeRun(s.ctx, st)!;
 		const r = reshapeDeclaredEntries(run.changes, Object.fromEntries(run.changes.map((c) => [c.key, { choice: 'other' as const }])));
 		expect(r.ok).toBe(false);
+	});
+	it('takes back one drag at a time, brings it back on redo, and leaves one undo step when applied', () => {
+		const { s, st } = reshaping();
+		dragThrough(s, 'band', [{ x: 200, y: 300 }, { x: 200, y: 305 }, { x: 200, y: 310 }]);
+		dragThrough(s, 'band', [{ x: 0, y: 300 }, { x: 0, y: 305 }, { x: 0, y: 310 }]);
+		expect(st.moves).toHaveLength(2);
+		s.undo();
+		expect(st.moves).toHaveLength(1);
+		expect(st.moves[0].from).toEqual({ x: 200, y: 300 });
+		s.undo();
+		expect(st.moves).toHaveLength(0);
+		s.redo();
+		s.redo();
+		expect(st.moves).toHaveLength(2);
+		const run = reshapeRun(s.ctx, st)!;
+		const entries = reshapeDeclaredEntries(run.changes);
+		if (!entries.ok) throw new Error('not declared');
+		s.settle(reshapeApply(s.ctx, st, entries.entries));
+		expect(s.docs.past).toHaveLength(1);
+		expect(s.move.id === 'reshape' && s.move.moves).toEqual([]);
+		// the applied reshape is undone as one step on the document
+		s.undo();
+		expect(s.docs.piece('band')!.steps).toHaveLength(0);
+	});
+	it('makes no undo step for a press on a point that does not move it', () => {
+		const { s, st } = reshaping();
+		dragThrough(s, 'band', [{ x: 200, y: 300 }]);
+		expect(st.past).toHaveLength(0);
 	});
 });

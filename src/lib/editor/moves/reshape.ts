@@ -19,7 +19,14 @@ export interface ReshapeState extends OnPiece {
 	dragging: Vec | null;
 	/** The change alters the area, a seam or the shaping: the declaration form is open. */
 	declaring: boolean;
+	/** The points as they were before each drag (undo takes back one drag), and the drags undone (redo). */
+	past: Moves[];
+	future: Moves[];
+	/** The points when the pointer went down (a drag that moved them becomes one undo step). */
+	atDown: Moves | null;
 }
+
+type Moves = { from: Vec; to: Vec }[];
 
 /** The outline's points a hand can move: segment ends and Bézier handles (each once), a handle with the end it belongs to. */
 export function reshapePoints(piece: Piece): { at: Vec; handleOf: Vec | null }[] {
@@ -80,7 +87,7 @@ export const reshapeMove: MoveDef<ReshapeState> = {
 	key: 'r',
 	icon: 'M4 18 C8 6 16 6 20 18 M12 8.5 L12 8.6 M8 6 L16 6',
 	edits: true,
-	fresh: (ctx, prev) => ({ id: 'reshape', pieceKey: prev ? prev.pieceKey : editableSelected(ctx), moves: [], dragging: null, declaring: false }),
+	fresh: (ctx, prev) => ({ id: 'reshape', pieceKey: prev ? prev.pieceKey : editableSelected(ctx), moves: [], dragging: null, declaring: false, past: [], future: [], atDown: null }),
 	started: (st) => st.moves.length > 0,
 	hint: (_ctx, st) =>
 		st.declaring
@@ -110,6 +117,7 @@ export const reshapeMove: MoveDef<ReshapeState> = {
 		}
 		st.dragging = best;
 		if (best) st.declaring = false;
+		st.atDown = best ? st.moves : null;
 		return best !== null;
 	},
 	move(ctx, st, p) {
@@ -121,6 +129,30 @@ export const reshapeMove: MoveDef<ReshapeState> = {
 	},
 	up(_ctx, st) {
 		st.dragging = null;
+		// one drag, one undo step
+		if (st.atDown && st.atDown !== st.moves) {
+			st.past = [...st.past, st.atDown];
+			st.future = [];
+		}
+		st.atDown = null;
+	},
+	undo(_ctx, st) {
+		const before = st.past.at(-1);
+		if (!before || st.dragging) return null;
+		st.future = [st.moves, ...st.future];
+		st.past = st.past.slice(0, -1);
+		st.moves = before;
+		st.declaring = false;
+		return 'the last point dragged';
+	},
+	redo(_ctx, st) {
+		const after = st.future[0];
+		if (!after || st.dragging) return null;
+		st.past = [...st.past, st.moves];
+		st.future = st.future.slice(1);
+		st.moves = after;
+		st.declaring = false;
+		return 'the point dragged';
 	},
 	commit(ctx, st) {
 		const run = reshapeRun(ctx, st);

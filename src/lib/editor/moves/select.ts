@@ -9,8 +9,8 @@ import type { MoveDef } from './types';
 
 export interface SelectState {
 	id: 'select';
-	/** A piece being moved on the table: where the pointer went down, where the piece was, where it would go. */
-	drag: { key: string; start: Vec; from: Vec; offset: Vec | null } | null;
+	/** A piece being moved on the table: where the pointer went down, where the piece was, whether it has moved yet. */
+	drag: { key: string; start: Vec; from: Vec; moved: boolean } | null;
 }
 
 /** Select pieces, edges and points; drag a piece to move it on the table (display only). */
@@ -33,18 +33,20 @@ export const selectMove: MoveDef<SelectState> = {
 		if (!piece) return false;
 		const part = partAt(ctx, p.hit!, ctx.local(piece.key, p.world));
 		if (part) ctx.selectPart(piece.key, part);
-		st.drag = { key: piece.key, start: p.world, from: piece.offset, offset: null };
+		st.drag = { key: piece.key, start: p.world, from: piece.offset, moved: false };
 		return true;
 	},
-	move(_ctx, st, p) {
+	move(ctx, st, p) {
 		const d = st.drag;
-		if (d) d.offset = vecAdd(d.from, vecSub(p.world, d.start));
+		if (!d) return;
+		// the piece moves in the document as the pointer goes; the whole drag is one undo step
+		const offset = vecAdd(d.from, vecSub(p.world, d.start));
+		if (!ctx.dragChange((doc) => docPieceMoved(doc, d.key, offset))) d.moved = true;
 	},
-	up(ctx, st, _p, moved) {
+	up(ctx, st) {
 		const d = st.drag;
 		st.drag = null;
-		const offset = d?.offset;
-		if (moved && d && offset) ctx.edit((doc) => docPieceMoved(doc, d.key, offset));
+		if (d?.moved) ctx.dragEnd(`${ctx.piece(d.key)?.name ?? 'Piece'} moved on the table`);
 	}
 };
 

@@ -95,6 +95,9 @@ export interface MoveDef<S> {
 	/** Pointer released; `commit` asks the editor to apply the move if its preview can be applied. */
 	up?(ctx: MoveContext, st: S, p: PointerInfo, moved: boolean): void | 'commit';
 	commit?(ctx: MoveContext, st: S): CommitOutcome;
+	/** Undo the last thing done inside the move (a reshape's last drag): its name, or null when there is none (the document's history undoes then). */
+	undo?(ctx: MoveContext, st: S): string | null;
+	redo?(ctx: MoveContext, st: S): string | null;
 }
 
 export const emptyPreview = (pieceKey: string | null, error: string | null = null): MovePreview => ({

@@ -16,9 +16,9 @@ export type DocEdit = { ok: true; doc: EditorDoc; label: string; select?: string
 const NEW_SEAM_TOLERANCE_MM = 1.6;
 const CANNOT = 'This piece cannot be changed here.';
 
-export const recipeOf = (p: PieceEdit): RecipeStepData[] => p.steps.map((s) => ({ op: s.op, params: s.params }));
+export const recipeOf = (p: Pick<PieceEdit, 'steps'>): RecipeStepData[] => p.steps.map((s) => ({ op: s.op, params: s.params }));
 /** Labelled changes declared with the steps (e.g. a trued seam's length), sent with the save. */
-export const declaredOf = (p: PieceEdit): LedgerEntry[] => p.steps.flatMap((s) => s.declared ?? []);
+export const declaredOf = (p: Pick<PieceEdit, 'steps'>): LedgerEntry[] => p.steps.flatMap((s) => s.declared ?? []);
 
 /** A piece made by a multi-piece step in the editor, not saved yet: its history starts with the style change. */
 export function pieceEditNew(key: string, g: Piece, offset: Vec): PieceEdit {

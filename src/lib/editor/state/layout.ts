@@ -1,3 +1,4 @@
+import { boundingBoxUnion, BOUNDING_BOX_EMPTY, pathBoundingBox, type BoundingBox } from '$lib/geometry';
 import type { StylePiece } from '../api';
 import type { PieceEdit } from '../doc';
 import { pieceDrawing } from '../drawing';
@@ -45,4 +46,14 @@ export function piecesLaidOut(list: readonly StylePiece[], canEdit: boolean): Pi
 		});
 	}
 	return pieces;
+}
+
+/** A world-space bounding box of the pieces: their cut lines (`outer`, for fitting the view) or their stitching lines. */
+export function piecesBoxOf(pieces: readonly PieceEdit[], outer: boolean): BoundingBox {
+	let box = BOUNDING_BOX_EMPTY;
+	for (const p of pieces) {
+		const b = outer ? pieceDrawing(p.geometry).outerBox : pathBoundingBox(p.geometry.outline);
+		box = boundingBoxUnion(box, { minX: b.minX + p.offset.x, minY: b.minY + p.offset.y, maxX: b.maxX + p.offset.x, maxY: b.maxY + p.offset.y });
+	}
+	return box;
 }
