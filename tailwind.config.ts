@@ -1,7 +1,8 @@
 import type { Config } from 'tailwindcss';
+import { COLORS } from './src/lib/palette';
 
 /**
- * Dartelier's palette and type, defined once. Every colour used for text reads at 4.5:1 or more
+ * Dartelier's palette (src/lib/palette.ts) and type. Every colour used for text reads at 4.5:1 or more
  * (WCAG 2.2 AA, checked by axe in the browser tests) on paper, on white and on its own 10 % tint;
  * greyed text is `ink-soft`, never ink made transparent (ink at 60 % falls to 3.9:1 on paper).
  */
@@ -9,15 +10,8 @@ export default {
 	content: ['./src/**/*.{html,svelte,ts}'],
 	theme: {
 		extend: {
-			colors: {
-				paper: '#F7F3EA',
-				ink: { DEFAULT: '#1F2A37', soft: '#4D5663' },
-				chalk: '#E4DED0',
-				indigo: { DEFAULT: '#2F4B7C', dark: '#223a61' },
-				madder: '#A63D28',
-				sage: '#476350',
-				ochre: '#7F5912'
-			},
+			// the one palette (src/lib/palette.ts): bg-paper, text-ink-soft, stroke-madder-light …
+			colors: COLORS,
 			fontFamily: {
 				sans: ['"Source Sans 3"', 'system-ui', 'sans-serif']
 			}

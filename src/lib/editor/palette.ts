@@ -1,14 +1,16 @@
-/** The canvas colours: the same palette as tailwind.config.ts (paper, ink, chalk, indigo, madder, sage, ochre). */
+import { colorAlpha, COLORS } from '$lib/palette';
+
+/** The canvas colours, taken from the one palette (src/lib/palette.ts): strokes in its light tones. */
 export const PALETTE = {
-	paper: '#F7F3EA',
-	pieceFill: '#FFFCF5',
-	ink: '#1F2A37',
-	chalk: '#E4DED0',
-	gridMajor: '#CFC6B1',
+	paper: COLORS.paper.DEFAULT,
+	pieceFill: COLORS.paper.light,
+	ink: COLORS.ink.DEFAULT,
+	chalk: COLORS.chalk.DEFAULT,
+	gridMajor: COLORS.chalk.dark,
 	/** The faint shadow of a piece of paper on the table (ink, mostly transparent). */
-	shadow: 'rgba(31, 42, 55, 0.16)',
-	indigo: '#2F4B7C',
-	madder: '#B5452F',
-	sage: '#5E7D63',
-	ochre: '#C08A2E'
+	shadow: colorAlpha(COLORS.ink.DEFAULT, 0.16),
+	indigo: COLORS.indigo.DEFAULT,
+	madder: COLORS.madder.light,
+	sage: COLORS.sage.light,
+	ochre: COLORS.ochre.light
 } as const;

@@ -1,3 +1,4 @@
+import { COLORS } from '$lib/palette';
 import { jsonError } from '../http-errors';
 import { DATABASE_RETRY_AFTER_S, DATABASE_UNAVAILABLE_MESSAGE } from './unavailable';
 
@@ -21,11 +22,11 @@ export function databaseUnavailablePage(): Response {
 <meta http-equiv="refresh" content="${DATABASE_RETRY_AFTER_S * 3}">
 <title>Dartelier is catching its breath</title>
 <style>
-body{margin:0;background:#F7F3EA;color:#1F2A37;font-family:"Source Sans 3",system-ui,sans-serif}
+body{margin:0;background:${COLORS.paper.DEFAULT};color:${COLORS.ink.DEFAULT};font-family:"Source Sans 3",system-ui,sans-serif}
 main{max-width:34rem;margin:12vh auto;padding:0 1.5rem}
 h1{font-size:1.6rem;margin:0 0 .75rem}
 p{line-height:1.5}
-a{color:#223a61}
+a{color:${COLORS.indigo.dark}}
 </style>
 </head>
 <body>
