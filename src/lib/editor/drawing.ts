@@ -15,6 +15,7 @@ import {
 	type BoundingBox,
 	type Vec
 } from '$lib/geometry';
+import { outlinePleatsAcross, pleatMarks } from '$lib/pattern/export/pleat-marks';
 import type { Piece } from '$lib/pattern/piece-schema';
 
 /**
@@ -86,7 +87,8 @@ function notchMarks(piece: Piece): Vec[][] {
 }
 
 function buildDrawing(piece: Piece): PieceDrawing {
-	const stitch = outlineFlatten(piece.outline, DRAW_TOLERANCE_MM);
+	// pleats drawn as sewn, as on the piece's page and in the export: the seam runs across their mouths
+	const stitch = outlineFlatten(piece.pleats.length ? outlinePleatsAcross(piece) : piece.outline, DRAW_TOLERANCE_MM);
 	const bbox = pathBoundingBox(piece.outline);
 	const cut = piece.seamAllowance ? [outlineFlatten(piece.seamAllowance.cutLine, DRAW_TOLERANCE_MM)] : [];
 	const outerBox = cut.length ? pointsBoundingBox(cut.flat()) : bbox;
@@ -115,11 +117,10 @@ function buildDrawing(piece: Piece): PieceDrawing {
 		}
 	}
 	for (const p of piece.pleats) {
-		marks.push([p.foldLine.from, p.foldLine.to]);
-		marks.push([p.placementLine.from, p.placementLine.to]);
-		const dir = vecNormalize(vecSub(p.foldArrow.from, p.foldLine.to));
-		const lift = vecScale(dir, -8);
-		arrows.push({ from: vecAdd(p.foldArrow.from, lift), to: vecAdd(p.foldArrow.to, lift), heads: 'one' });
+		// the fold and placement lines from the seam over the stitched length, and the fold arrow
+		const m = pleatMarks(p);
+		marks.push([...m.fold], [...m.placement]);
+		arrows.push({ from: m.arrow.from, to: m.arrow.to, heads: 'one' });
 	}
 	if (piece.grainline) arrows.push({ from: piece.grainline.from, to: piece.grainline.to, heads: piece.grainline.arrowheads });
 	const internal = piece.internalLines.map((l) => pathFlatten(l.path, DRAW_TOLERANCE_MM));
