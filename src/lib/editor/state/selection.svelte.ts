@@ -22,6 +22,8 @@ export class Selection {
 	/** Panels picked together (Shift+click): join two, carry a row. */
 	panels = $state<string[]>([]);
 	hover = $state.raw<Hit | null>(null);
+	/** The piece was picked by the user (a click, the list), not by opening the style: its moves show beside it. */
+	boxed = $state(false);
 	snapShown = $state.raw<Snap | null>(null);
 
 	private clearParts() {
@@ -34,6 +36,7 @@ export class Selection {
 	/** A piece as a whole. */
 	piece(key: string | null) {
 		this.pieceKey = key;
+		this.boxed = key !== null;
 		this.clearParts();
 		this.panels = [];
 	}
@@ -43,6 +46,7 @@ export class Selection {
 		this.panels = [];
 		if (!h) return;
 		this.pieceKey = h.pieceKey;
+		this.boxed = true;
 		this.segmentIndex = h.kind === 'edge' || h.kind === 'point' ? h.segmentIndex : -1;
 		this.point = h.kind === 'point' || h.kind === 'apex' ? h.local : null;
 	}
