@@ -5,6 +5,7 @@ import demo from '../../fixtures/demo-studio.json';
 import { DEMO_STYLE, demoPath } from '../../src/lib/pattern/fixtures/demo-path';
 import { draftedStyleDiscard } from '../../src/lib/server/repositories/measurement-sets';
 import { piecesOfStyle } from '../../src/lib/server/repositories/pieces';
+import { seamPairsOfStyle } from '../../src/lib/server/repositories/seam-pairs';
 import { styleChangesOfStyle } from '../../src/lib/server/repositories/style-changes';
 import { stylesOfStudio } from '../../src/lib/server/repositories/styles';
 import { usersByEmail } from '../../src/lib/server/repositories/users';
@@ -107,6 +108,17 @@ describe('demo style: Juniper corset bodice', () => {
 		const ops = [];
 		for (const s of await versionsAsc(upper.id)) ops.push(((await versionsById(testDb(), upper.id, s.id))!.recipe as { op: string }[])[0].op);
 		expect(ops).toEqual(['change_result', 'pivot', 'pleat', 'grain']);
+	});
+
+	it('stores the seam pairs between neighbouring under-structure panels, as drafting a style does', async () => {
+		const [style] = await demoStyles();
+		const pieces = await piecesOfStyle(testDb(), style.id);
+		const name = (id: string) => pieces.find((p) => p.id === id)?.name;
+		const pairs = (await seamPairsOfStyle(testDb(), style.id)).map((p) => [p.label, name(p.aPieceId), name(p.bPieceId)]).sort();
+		expect(pairs).toEqual([
+			['panel seam A', 'Under-structure: Centre front panel', 'Under-structure: Middle front panel'],
+			['panel seam B', 'Under-structure: Middle front panel', 'Under-structure: Side front panel']
+		]);
 	});
 
 	it('has the final band and upper front signed off, the rest in draft', async () => {

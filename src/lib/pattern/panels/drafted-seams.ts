@@ -8,6 +8,9 @@ import { polylineEdgeEnds } from './seam-edge-ends';
  * edge runs from the waist through the divergence point to the top; the divergence point is an apex
  * of kind `divergence` on both panels (drafting marks it), so carry and join find the wedge there.
  */
+/** Drafted panel seams are sewn to match, trued to 1/16 in (reference-values row 25, C/P). */
+export const DRAFTED_SEAM_TOLERANCE_MM = 25.4 / 16;
+
 export interface DraftedSeamPair {
 	readonly label: string;
 	readonly aPanelId: string;

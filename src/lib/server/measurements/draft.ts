@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { draftCautions, EASE_DEFAULT, underStructureDraft, type Ease } from '$lib/pattern/drafting';
 import { measurementHardProblems } from '$lib/pattern/measurements';
-import { draftedSeamPairs } from '$lib/pattern/panels/drafted-seams';
+import { DRAFTED_SEAM_TOLERANCE_MM, draftedSeamPairs } from '$lib/pattern/panels/drafted-seams';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { Db } from '../db';
 import { ApiError } from '../http-errors';
@@ -14,8 +14,6 @@ import { measurementChartsEnsure } from './charts';
 import { draftAttempt, draftCulprits, draftCulpritText, draftPieces } from './draft-culprit';
 import { measurementSetOr404, measurementsMmOf } from './sets';
 
-/** Drafted panel seams are sewn to match, trued to 1/16 in (reference-values row 25, C/P). */
-const DRAFTED_SEAM_TOLERANCE_MM = 25.4 / 16;
 
 /** Ease bounds (whole girth, mm): negative for boned, close-fitting work; the cautions say the rest. */
 const easeMm = (label: string) =>

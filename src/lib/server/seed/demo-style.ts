@@ -1,8 +1,10 @@
 import { DEMO_CHART, DEMO_STYLE, demoPath } from '$lib/pattern/fixtures/demo-path';
+import { DRAFTED_SEAM_TOLERANCE_MM, draftedSeamPairs } from '$lib/pattern/panels/drafted-seams';
 import type { Db } from '../db';
 import type { Role } from '../db/schema';
 import { measurementChartsEnsure } from '../measurements/charts';
 import { draftedStyleDiscard, measurementSetsOfStudio } from '../repositories/measurement-sets';
+import { seamPairsCreate } from '../repositories/seam-pairs';
 import { stylesCreate, stylesOfStudio } from '../repositories/styles';
 import { changeSave } from '../changes/save';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
@@ -78,6 +80,14 @@ export async function demoStyleSeed(db: Db, studioId: string, authors: DemoStyle
 			const first = await pieceCreateWithFirstVersion(db, { studioId, styleId: style.id, authorId: authors.patterncutter, name: p.name, message: p.first.message, geometry: p.first.geometry, origin });
 			if (!first.ok) throw refusal(`${p.name} v1`, first);
 			await laterVersions(p, first.piece.id, [{ id: first.version.id, number: first.version.number }]);
+		}
+		// the seams between neighbouring under-structure panels, stored as drafting a style stores them
+		const pieceOfPanel = new Map(path.pieces.map((p) => [p.first.geometry.id, made.get(p.key)?.id]));
+		for (const sp of draftedSeamPairs(path.draft)) {
+			const aPieceId = pieceOfPanel.get(sp.aPanelId);
+			const bPieceId = pieceOfPanel.get(sp.bPanelId);
+			if (!aPieceId || !bPieceId) throw new Error(`Demo style: ${sp.label} names a panel that was not stored.`);
+			await seamPairsCreate(db, { styleId: style.id, label: sp.label, aPieceId, aEdge: sp.a, bPieceId, bEdge: sp.b, allowedEaseMm: 0, toleranceMm: DRAFTED_SEAM_TOLERANCE_MM });
 		}
 		// the carry and the joins above the line: one style change, recomputed by the server from the panels
 		const idOf = (key: string) => made.get(key)?.id ?? key;
