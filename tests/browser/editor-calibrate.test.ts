@@ -1,21 +1,13 @@
 // The editor's calibrate dialog is a dialog of the keyboard too: focus starts in it and Escape closes it.
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { describe, expect, inject, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
-import { browserLaunch } from './chromium';
-import { editorOpen, editorSetUp } from './editor-helpers';
+import { editorBrowserUse, editorOpen, editorSetUp } from './editor-helpers';
 
 describe('calibrate dialog', () => {
-	let browser: Browser;
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser } = editorBrowserUse();
 
 	it('Escape closes the calibrate dialog without changing the calibration', async () => {
-		const f = await editorSetUp(browser, inject('baseUrl'), [{ name: 'Front bodice', geometry: frontBodiceBlock() }]);
+		const f = await editorSetUp(browser(), inject('baseUrl'), [{ name: 'Front bodice', geometry: frontBodiceBlock() }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.getByRole('button', { name: 'Calibrate' }).click();

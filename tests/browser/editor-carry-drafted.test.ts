@@ -1,12 +1,12 @@
 // A new user's path to the product's central move: draft a block with a 6-panel boned under-structure
 // through the form, open the editor, carry the panel shaping into one underbust seam, save, reload.
 // Nothing is seeded: the seam pairs and divergence points are the ones drafting stored.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { pathBoundingBox } from '../../src/lib/geometry';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, dragOnPiece, editorOpen, lerp, saveFromPanel, signUp } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { clickOnPiece, dragOnPiece, editorBrowserUse, editorOpen, lerp, saveFromPanel, signUp } from './editor-helpers';
 
 const readouts = (page: Page) => page.locator('[data-testid="tool-readouts"]').textContent();
 
@@ -27,17 +27,10 @@ async function draftThroughTheForm(page: Page, baseUrl: string, studioId: string
 }
 
 describe('carry on a style drafted in the test, from the interface', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('drafts a 6-panel under-structure, draws the underbust line, carries, saves, reloads and finds the band and the upper panels with their ledgers balanced', { timeout: 150_000 }, async () => {
-		const { context, page } = await signUp(browser, baseUrl());
+		const { context, page } = await signUp(browser(), baseUrl());
 		const problems: string[] = [];
 		page.on('pageerror', (e) => problems.push(e.message));
 		const studioId = (await (await page.request.get(`${baseUrl()}/api/studios`)).json()).studios[0].id as string;
@@ -107,7 +100,7 @@ describe('carry on a style drafted in the test, from the interface', () => {
 		await context.close();
 	});
 	it('unpairs a drafted seam, pairs it again by picking its edges, and marks the bust point of the front as a divergence point that the server replays', { timeout: 150_000 }, async () => {
-		const { context, page } = await signUp(browser, baseUrl());
+		const { context, page } = await signUp(browser(), baseUrl());
 		const problems: string[] = [];
 		page.on('pageerror', (e) => problems.push(e.message));
 		const studioId = (await (await page.request.get(`${baseUrl()}/api/studios`)).json()).studios[0].id as string;

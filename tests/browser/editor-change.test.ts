@@ -1,13 +1,12 @@
 // The editor saves a multi-piece change through the change endpoint: carry two panels, name the new
 // pieces, save once (one POST …/changes), reload and find the change as stored.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { pathBoundingBox, pathFromPolyline, pathLength, outlineBetween, type Vec } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { underStructurePanels } from '../../src/lib/pattern/panels/fixtures/under-structure-panels';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { dragOnPiece, editorOpen, saveFromPanel, signUp, styleWithPieces } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { dragOnPiece, editorBrowserUse, editorOpen, saveFromPanel, signUp, styleWithPieces } from './editor-helpers';
 
 // The 6-panel boned under-structure drafted from the ASTM D5585 misses chart, size 10 curvy: two panels of it.
 const six = underStructurePanels(6);
@@ -20,17 +19,10 @@ function inOutlineOrder(piece: Piece, pts: readonly Vec[]): { from: Vec; to: Vec
 }
 
 describe('pattern editor: a multi-piece change saved as one', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('carries two panels, asks each new piece\'s name and cut, saves them through the change endpoint, and finds them after a reload', async () => {
-		const { context, page } = await signUp(browser, baseUrl());
+		const { context, page } = await signUp(browser(), baseUrl());
 		const panels = six.panels.slice(0, 2);
 		const s = await styleWithPieces(page, baseUrl(), panels.map((p) => ({ name: p.name, geometry: p })), 'Carried bodice');
 		const seam = six.draft.seams.find((x) => x.leftPanelId === panels[0].id && x.rightPanelId === panels[1].id)!;

@@ -1,9 +1,9 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import { recipeStepApply } from '../../src/lib/pattern/recipe/registry';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { editorOpen, editorSetUp } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { editorBrowserUse, editorOpen, editorSetUp } from './editor-helpers';
 
 const net = frontBodiceBlock();
 const withAllowance = (() => {
@@ -43,16 +43,10 @@ async function inkOutsideSideSeam(page: Page, key: string, fromMm: number, toMm:
 }
 
 describe('editor: the cut line', () => {
-	let browser: Browser;
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser } = editorBrowserUse();
 
 	it('draws no cut line round a piece without seam allowance, and the real one round a piece with it', async () => {
-		const f = await editorSetUp(browser, inject('baseUrl'), [
+		const f = await editorSetUp(browser(), inject('baseUrl'), [
 			{ name: 'Net front', geometry: net },
 			{ name: 'Front with allowance', geometry: withAllowance }
 		]);

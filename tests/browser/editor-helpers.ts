@@ -1,7 +1,36 @@
-// Shared set-up for the editor's browser tests: a fresh user with a studio, a style and pieces made
-// through the API, and helpers to reach points of a piece on the canvas.
+// Shared set-up for the editor's browser tests: the browser for a describe block, a fresh user with a
+// studio, a style and pieces made through the API (or the demo style), and helpers to reach points of a
+// piece on the canvas.
 import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, inject } from 'vitest';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
+import { dbCreate } from '../../src/lib/server/db/index';
+import { demoStyleSeed } from '../../src/lib/server/seed/demo-style';
+import { browserLaunch } from './chromium';
+
+/**
+ * For a describe block of editor tests: launches the browser before its tests and closes it after (as
+ * `demoBrowserUse` does for the demo studio's pages). Read `browser()` and `baseUrl()` inside the tests.
+ */
+export function editorBrowserUse(): { browser: () => Browser; baseUrl: () => string } {
+	let browser: Browser | undefined;
+	beforeAll(async () => {
+		browser = await browserLaunch();
+	});
+	afterAll(async () => {
+		await browser?.close();
+	});
+	return { browser: () => browser!, baseUrl: () => inject('baseUrl') };
+}
+
+/** The demo style seeded into the signed-in user's own studio, as a new user finds it, and its editor's address. */
+export async function demoStyleInOwnStudio(page: Page, baseUrl: string): Promise<{ studioId: string; styleId: string; editorUrl: string }> {
+	const me = await (await page.request.get(`${baseUrl}/api/me`)).json();
+	const studioId = me.memberships[0].studioId as string;
+	const db = dbCreate(inject('databaseUrl'), 2);
+	const { styleId } = await demoStyleSeed(db, studioId, { patterncutter: me.user.id, designer: me.user.id }).finally(() => db.destroy());
+	return { studioId, styleId, editorUrl: `${baseUrl}/studios/${studioId}/styles/${styleId}/edit` };
+}
 
 export interface EditorFixture {
 	context: BrowserContext;

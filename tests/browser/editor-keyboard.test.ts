@@ -1,25 +1,17 @@
 // Object first from the keyboard: what is clicked on the table offers its moves beside it; Tab from the
 // canvas reaches them, Enter starts the one focused; every move's key is on its button and in the help.
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { vecLerp } from '../../src/lib/geometry';
 import { frontBodiceBlock, FRONT_BLOCK_BUST_POINT } from '../../src/lib/pattern/fixtures/front-bodice-block';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, editorOpen, editorSetUp, firstKey } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { clickOnPiece, editorBrowserUse, editorOpen, editorSetUp, firstKey } from './editor-helpers';
 
 describe('editor: the moves of the selection, by keyboard', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('a dart clicked offers its moves beside it; Tab reaches them from the canvas and Enter starts one; the keys are shown', async () => {
 		const block = frontBodiceBlock();
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		const key = await firstKey(page);

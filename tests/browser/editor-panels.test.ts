@@ -1,11 +1,11 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { outlineBetween, pathBoundingBox, pathLength, pathFromPolyline, vecDistance, type Vec } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { underStructurePanels } from '../../src/lib/pattern/panels/fixtures/under-structure-panels';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { dragOnPiece, editorOpen, saveFromPanel, signUp, styleWithPieces } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { dragOnPiece, editorBrowserUse, editorOpen, saveFromPanel, signUp, styleWithPieces } from './editor-helpers';
 
 // The 6-panel boned under-structure drafted from the ASTM D5585 misses chart, size 10 curvy.
 const six = underStructurePanels(6);
@@ -54,17 +54,10 @@ async function saveAll(page: Page, message: string) {
 }
 
 describe('pattern editor: panel tools', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('joins two panels along their stored seam pair, closing the wedge or keeping it as a dart, and saves the new piece', async () => {
-		const f = await panelsStyle(browser, baseUrl(), 2);
+		const f = await panelsStyle(browser(), baseUrl(), 2);
 		const { page } = f;
 		const problems: string[] = [];
 		page.on('pageerror', (e) => problems.push(e.message));
@@ -91,7 +84,7 @@ describe('pattern editor: panel tools', () => {
 	});
 
 	it('carries the 6-panel under-structure (three panels a side) into one underbust seam: residuals live while the line is high, none at the reach line', async () => {
-		const f = await panelsStyle(browser, baseUrl(), 6);
+		const f = await panelsStyle(browser(), baseUrl(), 6);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.keyboard.press('k');
@@ -141,7 +134,7 @@ describe('pattern editor: panel tools', () => {
 	});
 
 	it('trues a seam: lengths with darts folded out against the allowed ease, one end moved, saved as a new version', async () => {
-		const f = await panelsStyle(browser, baseUrl(), 2, 3);
+		const f = await panelsStyle(browser(), baseUrl(), 2, 3);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.keyboard.press('t');

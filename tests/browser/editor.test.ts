@@ -1,13 +1,12 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import AxeBuilder from '@axe-core/playwright';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { outlineBetween, pathLength } from '../../src/lib/geometry';
 import { outlineNearestLocation } from '../../src/lib/pattern/kernel';
 import { allowanceEdges } from '../../src/lib/pattern/panels/allowance-edges';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { clickOnPiece, dragOnPiece, editorOpen, editorSetUp, firstKey, lerp, saveFromPanel, toPage } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { clickOnPiece, dragOnPiece, editorBrowserUse, editorOpen, editorSetUp, firstKey, lerp, saveFromPanel, toPage } from './editor-helpers';
 
 const block = frontBodiceBlock();
 const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
@@ -19,17 +18,10 @@ const waistLeg1 = block.darts.find((d) => d.id === 'waist-dart')!.leg1End;
 const waistAt = (x: number) => lerp({ x: 225, y: 440 }, waistLeg1, (225 - x) / (225 - waistLeg1.x));
 
 describe('pattern editor', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('pivots the bust dart to the side seam by dragging, keeps the ledger balanced, saves version 2', async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		const problems: string[] = [];
 		page.on('pageerror', (e) => problems.push(e.message));
@@ -79,7 +71,7 @@ describe('pattern editor', () => {
 	});
 
 	it('turns a dart into two pleats by typing numbers', async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.click('[data-tool="pleat"]');
@@ -104,7 +96,7 @@ describe('pattern editor', () => {
 	});
 
 	it('draws a style line, separates the piece, and undoes back to the start', async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		const key = await firstKey(page);
@@ -180,9 +172,9 @@ describe('pattern editor', () => {
 	});
 
 	it('resolves a save conflict from a second browser context without losing either edit', async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const a = f.page;
-		const other = await browser.newContext({ viewport: { width: 1440, height: 900 }, storageState: await f.context.storageState() });
+		const other = await browser().newContext({ viewport: { width: 1440, height: 900 }, storageState: await f.context.storageState() });
 		const b = await other.newPage();
 		await editorOpen(a, f.editorUrl);
 		await editorOpen(b, f.editorUrl);
@@ -222,7 +214,7 @@ describe('pattern editor', () => {
 	});
 
 	it('marks the piece for the sample room (notch, grainline, allowance), measures with the tape, saves', async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		const key = await firstKey(page);

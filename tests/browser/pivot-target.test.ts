@@ -1,28 +1,20 @@
 // The pivot form: the new opening typed as a point on a named seam, previewed while typing, never a
 // negative length; nothing opens on the fold (built app, Debian's Chromium).
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
-import { browserLaunch, pageScreenshot } from './chromium';
-import { dragOnPiece, editorOpen, editorSetUp, firstKey, lerp } from './editor-helpers';
+import { pageScreenshot } from './chromium';
+import { dragOnPiece, editorBrowserUse, editorOpen, editorSetUp, firstKey, lerp } from './editor-helpers';
 
 const block = frontBodiceBlock();
 const shoulder = block.darts.find((d) => d.id === 'shoulder-dart')!;
 const bp = block.apexes[0].point;
 
 describe('pivot target on a named seam', () => {
-	let browser: Browser;
-	const baseUrl = () => inject('baseUrl');
-	beforeAll(async () => {
-		browser = await browserLaunch();
-	});
-	afterAll(async () => {
-		await browser?.close();
-	});
+	const { browser, baseUrl } = editorBrowserUse();
 
 	it('types the new opening as a seam, an end and a distance, previews each keystroke, and shows no negative length', { timeout: 120_000 }, async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		const problems: string[] = [];
 		page.on('pageerror', (e) => problems.push(e.message));
@@ -63,7 +55,7 @@ describe('pivot target on a named seam', () => {
 	});
 
 	it('shares a dart out to points typed on named seams', { timeout: 120_000 }, async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.click('[data-tool="share"]');
@@ -82,7 +74,7 @@ describe('pivot target on a named seam', () => {
 	});
 
 	it('places pleats on a side of the dart named by the seam end it faces, with an unsigned distance', { timeout: 120_000 }, async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		await page.click('[data-tool="pleat"]');
@@ -109,7 +101,7 @@ describe('pivot target on a named seam', () => {
 	});
 
 	it('dragging a dart onto the fold line shows the refusal in the preview and applies nothing', { timeout: 120_000 }, async () => {
-		const f = await editorSetUp(browser, baseUrl(), [{ name: 'Front bodice', geometry: block }]);
+		const f = await editorSetUp(browser(), baseUrl(), [{ name: 'Front bodice', geometry: block }]);
 		const { page } = f;
 		await editorOpen(page, f.editorUrl);
 		const key = await firstKey(page);
