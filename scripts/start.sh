@@ -12,6 +12,7 @@ MAIL_HTTP_PORT="${MAIL_DEV_HTTP_PORT:-4174}"
 PAYMENTS_PORT="${PAYMENTS_FAKE_PORT:-4176}"
 USE_PAYMENTS_FAKE=1
 [ -n "${STRIPE_SECRET_KEY:-}" ] && USE_PAYMENTS_FAKE=0
+S3_PORT="${S3_DEV_PORT:-4175}"
 # Which of the project's clusters to use: dev (the start script's own test uses scratch).
 CLUSTER="${DARTELIER_START_CLUSTER:-dev}"
 # The build command (the start script's own test puts a stand-in here).
@@ -19,6 +20,25 @@ BUILD_CMD="${DARTELIER_START_BUILD:-npx vite build --logLevel warn}"
 
 ensure_node_modules
 pg_start "$CLUSTER"
+
+cleanup() {
+	[ -n "${S3_PID:-}" ] && kill "$S3_PID" 2>/dev/null || true
+	[ -n "${MAIL_PID:-}" ] && kill "$MAIL_PID" 2>/dev/null || true
+	[ -n "${PAYMENTS_PID:-}" ] && kill "$PAYMENTS_PID" 2>/dev/null || true
+	[ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null || true
+}
+trap cleanup EXIT INT TERM
+
+# The local object store for photos (before the seed, which stores the demo fitting's photos).
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET="${S3_BUCKET:-dartelier-photos}"
+S3_DEV_PORT="$S3_PORT" S3_DEV_DIR=".run/s3/$CLUSTER" npx tsx scripts/s3-dev.ts >"$RUN_DIR/s3-dev.log" 2>&1 &
+S3_PID=$!
+for _ in $(seq 1 300); do
+	grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" 2>/dev/null && break
+	kill -0 "$S3_PID" 2>/dev/null || { tail -n 20 "$RUN_DIR/s3-dev.log" >&2; die "the object store stopped at once; see .run/s3-dev.log"; }
+	sleep 0.1
+done
+grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" || die "the object store did not start; see .run/s3-dev.log"
 quietly "$RUN_DIR/migrate.log" "migrating the database" npx tsx scripts/migrate.ts
 say "database migrated (log: .run/migrate.log)"
 quietly "$RUN_DIR/seed.log" "seeding the demo studio" npx tsx scripts/seed.ts
@@ -35,13 +55,6 @@ else
 	say "the app is built and up to date"
 fi
 
-cleanup() {
-	[ -n "${MAIL_PID:-}" ] && kill "$MAIL_PID" 2>/dev/null || true
-	[ -n "${PAYMENTS_PID:-}" ] && kill "$PAYMENTS_PID" 2>/dev/null || true
-	[ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null || true
-}
-trap cleanup EXIT INT TERM
-
 MAIL_DEV_SMTP_PORT="$MAIL_SMTP_PORT" MAIL_DEV_HTTP_PORT="$MAIL_HTTP_PORT" npx tsx scripts/mail-dev.ts >"$RUN_DIR/mail-dev.log" 2>&1 &
 MAIL_PID=$!
 if [ "$USE_PAYMENTS_FAKE" = 1 ]; then
@@ -55,7 +68,7 @@ fi
 # adapter-node: without ORIGIN it assumes https, which would refuse form posts on plain-http loopback.
 export HOST=127.0.0.1 PORT="$APP_PORT" ORIGIN="${ORIGIN:-http://127.0.0.1:$APP_PORT}"
 export SMTP_HOST=127.0.0.1 SMTP_PORT="$MAIL_SMTP_PORT"
-export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}"
+export MAIL_FROM="${MAIL_FROM:-Dartelier <studio@dartelier.localhost>}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-16M}"
 # The app's own messages (errors) stay in the terminal, after the summary below.
 node build &
 APP_PID=$!
@@ -88,11 +101,12 @@ $DEMO_USERS
 
   Also running:
 $(printf '    %-22s%s\n' "Dev inbox" "http://127.0.0.1:$MAIL_HTTP_PORT   (invitation and password e-mails)")
+$(printf '    %-22s%s\n' "Object store (photos)" "http://127.0.0.1:$S3_PORT, bucket $S3_BUCKET, data in .run/s3/$CLUSTER")
 $(printf '    %-22s%s\n' "PostgreSQL ($PG_NAME)" "127.0.0.1:$PG_PORT, database $PG_DB")
 $([ -n "${PAYMENTS_PID:-}" ] && printf '    %-22s%s\n' "Payments (local fake)" "http://127.0.0.1:$PAYMENTS_PORT   (test card 4242 4242 4242 4242)")
-  Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log, payments-dev.log)
+  Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log, payments-dev.log, s3-dev.log)
 
-  Ctrl-C stops the app, the inbox and the payments fake. The database keeps running: npm run db:stop stops it.
+  Ctrl-C stops the app, the inbox, the payments fake and the object store. The database keeps running: npm run db:stop stops it.
 
 MSG
 wait "$APP_PID"

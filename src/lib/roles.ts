@@ -60,6 +60,14 @@ export interface Can {
 	readonly manageStudio: boolean;
 	/** See and change the studio's plan, seats and invoices (the Billing page). */
 	readonly manageBilling: boolean;
+	/** Record fittings of a toile and upload their photos. */
+	readonly recordFittings: boolean;
+	/** Pin fit notes on a piece version. */
+	readonly pinNotes: boolean;
+	/** Mark a fit note done, resolved by a version. */
+	readonly resolveNotes: boolean;
+	/** Write in a version's comment thread. */
+	readonly comment: boolean;
 }
 
 /** The roles in their usual order, each with its label, for choosers. */

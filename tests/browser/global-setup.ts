@@ -6,6 +6,7 @@ import type { TestProject } from 'vitest/node';
 import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart } from '../../scripts/payments-fake/server';
 import { dbCreate } from '../../src/lib/server/db/index';
 import { migrateToLatest } from '../../src/lib/server/db/migrator';
+import { s3FakeStart } from '../s3-fake';
 
 async function freePort(): Promise<number> {
 	return new Promise((resolve, reject) => {
@@ -44,7 +45,10 @@ export default async function setup(project: TestProject) {
 		await db.destroy();
 	}
 	const [appPort, smtpPort, inboxPort] = [await freePort(), await freePort(), await freePort()];
-	const env = { ...process.env, DATABASE_URL: databaseUrl };
+	const s3 = await s3FakeStart('test-browser');
+	process.env.S3_ENDPOINT = s3.endpoint;
+	process.env.S3_BUCKET = s3.bucket;
+	const env = { ...process.env, DATABASE_URL: databaseUrl, S3_ENDPOINT: s3.endpoint, S3_BUCKET: s3.bucket };
 	// the payment provider's local fake, in this process; its webhooks go to the app below
 	const payments = await paymentsFakeStart({ port: 0, demo: true, webhookUrl: `http://127.0.0.1:${appPort}/api/billing/webhook` });
 	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
@@ -58,7 +62,7 @@ export default async function setup(project: TestProject) {
 			HOST: '127.0.0.1',
 			PORT: String(appPort),
 			ORIGIN: `http://127.0.0.1:${appPort}`,
-			BODY_SIZE_LIMIT: '8M',
+			BODY_SIZE_LIMIT: '16M',
 			SMTP_HOST: '127.0.0.1',
 			SMTP_PORT: String(smtpPort),
 			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>',
@@ -78,6 +82,7 @@ export default async function setup(project: TestProject) {
 	project.provide('inboxUrl', inboxUrl);
 	project.provide('paymentsUrl', payments.url);
 	project.provide('databaseUrl', databaseUrl);
+	project.provide('s3Endpoint', s3.endpoint);
 	return async () => {
 		app.kill('SIGTERM');
 		await payments.close();
@@ -88,6 +93,7 @@ export default async function setup(project: TestProject) {
 				/* already gone */
 			}
 		}
+		await s3.close();
 	};
 }
 
@@ -98,5 +104,6 @@ declare module 'vitest' {
 		databaseUrl: string;
 		/** the local payments fake (its /_fake/events lists what it sent) */
 		paymentsUrl: string;
+		s3Endpoint: string;
 	}
 }

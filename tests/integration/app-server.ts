@@ -24,11 +24,12 @@ export async function startApp(): Promise<RunningApp> {
 	const env: NodeJS.ProcessEnv = {
 		...process.env,
 		DATABASE_URL: inject('databaseUrl'),
+		S3_ENDPOINT: inject('s3Endpoint'),
 		SMTP_HOST: '127.0.0.1',
 		SMTP_PORT: String(mailbox.port),
 		MAIL_FROM: 'Dartelier tests <tests@dartelier.localhost>',
-		// adapter-node's own cap (default 512K) set above the API's 1 MB limit, as in production.
-		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '12M',
+		// adapter-node's own cap (default 512K) set above the photo limit (15 MB), as `npm start` does.
+		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '16M',
 		STRIPE_SECRET_KEY: PAYMENTS_FAKE_KEY,
 		STRIPE_WEBHOOK_SECRET: PAYMENTS_FAKE_WEBHOOK_SECRET,
 		STRIPE_API_HOST: '127.0.0.1',

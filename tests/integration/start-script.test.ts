@@ -31,7 +31,7 @@ describe('npm start', () => {
 	});
 
 	it('prints only where the app is, the demo sign-in with every e-mail, what else runs, and keeps the build warnings in .run/build.log', async () => {
-		const [appPort, smtpPort, inboxPort, paymentsPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
+		const [appPort, smtpPort, inboxPort, paymentsPort, s3Port] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
 		// a stale build stamp would skip the build step this test is about
 		execFileSync('rm', ['-f', 'build/.dartelier-built']);
 		child = spawn('bash', ['scripts/start.sh'], {
@@ -41,6 +41,7 @@ describe('npm start', () => {
 				MAIL_DEV_SMTP_PORT: String(smtpPort),
 				MAIL_DEV_HTTP_PORT: String(inboxPort),
 				PAYMENTS_FAKE_PORT: String(paymentsPort),
+				S3_DEV_PORT: String(s3Port),
 				DARTELIER_START_CLUSTER: 'scratch',
 				DARTELIER_START_BUILD: 'node tests/integration/fixtures/noisy-build.mjs'
 			},
@@ -70,6 +71,9 @@ describe('npm start', () => {
 		expect(plain).toContain(`http://127.0.0.1:${inboxPort}`);
 		expect(plain).toMatch(/PostgreSQL \(scratch\)/);
 		expect(plain).toContain(`http://127.0.0.1:${paymentsPort}`);
+		// the object store answers where the output says it is, with the bucket made
+		expect(plain).toContain(`http://127.0.0.1:${s3Port}, bucket dartelier-photos`);
+		expect((await fetch(`http://127.0.0.1:${s3Port}/dartelier-photos`)).status).not.toBe(404);
 		// none of the build's own output, and no command the user need not run
 		expect(plain).not.toContain('Circular dependency');
 		expect(plain).not.toContain('npm run preview');

@@ -34,6 +34,14 @@ export const SIGNERS = ['owner', 'designer'] as const satisfies readonly Role[];
 export const EDITORS_AND_SIGNERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
 /** See versions that are not signed off; the sample room sees signed-off versions only (handlers filter). */
 export const DRAFT_READERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
+/** Record fittings of a toile and upload their photos (the sample room fits; the owner may too). */
+export const FITTERS = ['owner', 'sampleroom'] as const satisfies readonly Role[];
+/** Pin fit notes on the pattern: whoever was at the fitting or reads it (the sample room pins what it saw). */
+export const NOTE_WRITERS = ['owner', 'patterncutter', 'designer', 'sampleroom'] as const satisfies readonly Role[];
+/** Mark a fit note done, resolved by a version: only whoever makes the versions. */
+export const NOTE_RESOLVERS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
+/** Write in a version's comment thread. */
+export const COMMENTERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
 
 export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	// pages
@@ -65,6 +73,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/billing': { GET: OWNER },
 	// JSON API
 	'/api/me': { GET: 'signed_in' },
+	'/api/me/notifications': { GET: 'signed_in', PATCH: 'signed_in' },
 	'/api/studios': { GET: 'signed_in', POST: 'signed_in' },
 	'/api/studios/[studioId]': { GET: ALL_ROLES, PATCH: OWNER },
 	'/api/studios/[studioId]/members': { GET: ALL_ROLES },
@@ -93,8 +102,19 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/pieces/[pieceId]/versions': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state': { POST: EDITORS_AND_SIGNERS },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/review': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/comments': { GET: ALL_ROLES, POST: COMMENTERS },
+	'/api/studios/[studioId]/pieces/[pieceId]/fit-notes': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/compare': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/export.svg': { GET: ALL_ROLES },
+	// fittings of a toile: photos, fit notes pinned to the pattern
+	'/api/studios/[studioId]/styles/[styleId]/fittings': { GET: ALL_ROLES, POST: FITTERS },
+	'/api/studios/[studioId]/fittings/[fittingId]': { GET: ALL_ROLES, DELETE: FITTERS },
+	'/api/studios/[studioId]/fittings/[fittingId]/photos': { POST: FITTERS },
+	'/api/studios/[studioId]/fittings/[fittingId]/photos/[photoId]': { DELETE: FITTERS },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes': { POST: NOTE_WRITERS },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]': { PATCH: NOTE_WRITERS },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]/done': { POST: NOTE_RESOLVERS },
 	'/api/studios/[studioId]/measurement-sets': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/measurement-sets/[setId]': { GET: ALL_ROLES, PATCH: EDITORS, DELETE: EDITORS },
 	'/api/studios/[studioId]/measurement-sets/[setId]/duplicate': { POST: EDITORS }
@@ -120,7 +140,11 @@ export function roleCan(role: Role): Can {
 		manageMembers: roleMay(role, `${studio}/members/[userId]`, 'PATCH'),
 		invite: roleMay(role, `${studio}/invitations`, 'POST'),
 		manageStudio: roleMay(role, studio, 'PATCH'),
-		manageBilling: roleMay(role, `${studio}/billing`, 'GET') && roleMay(role, '/studios/[studioId]/billing', 'GET')
+		manageBilling: roleMay(role, `${studio}/billing`, 'GET') && roleMay(role, '/studios/[studioId]/billing', 'GET'),
+		recordFittings: roleMay(role, `${studio}/styles/[styleId]/fittings`, 'POST'),
+		pinNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes`, 'POST'),
+		resolveNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes/[noteId]/done`, 'POST'),
+		comment: roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/comments`, 'POST')
 	};
 }
 

@@ -1,5 +1,6 @@
 import type { ColumnType, Generated } from 'kysely';
 import type { Role } from '../../roles';
+import type { FittingsDatabase } from './schema-fittings';
 
 /** Database tables as Kysely sees them. Keep in step with `migrations/`. */
 export type { Role };
@@ -214,3 +215,7 @@ export interface BillingInvoicesTable {
 	provider_created_at: Date;
 	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
 }
+
+/** Fittings, fit notes, reviews, comments and e-mail settings (migration 2026-12-03-0060), in their own file. */
+export type { FitNoteCategory, FitNoteStatus, NotificationKind, ReviewKind } from './schema-fittings';
+export interface Database extends FittingsDatabase {}

@@ -116,13 +116,14 @@ export async function demoStyleSeed(db: Db, studioId: string, authors: DemoStyle
 		for (const key of SIGNED_OFF) {
 			const p = made.get(key)!;
 			const last = p.versions[p.versions.length - 1];
-			const steps: { state: 'proposed' | 'signed_off'; userId: string; role: Role }[] = [
-				{ state: 'proposed', userId: authors.patterncutter, role: 'patterncutter' },
-				{ state: 'signed_off', userId: authors.designer, role: 'designer' }
+			// proposed by the cutter, then signed off by the designer after reviewing it (no e-mails: origin null)
+			const steps: { action: Parameters<typeof versionStateChange>[1]['action']; user: { id: string; name: string }; role: Role }[] = [
+				{ action: { action: 'propose', comment: '' }, user: { id: authors.patterncutter, name: 'pattern cutter' }, role: 'patterncutter' },
+				{ action: { action: 'sign_off', comment: 'Ready for the sample room.', acknowledged: [] }, user: { id: authors.designer, name: 'designer' }, role: 'designer' }
 			];
 			for (const s of steps) {
-				const r = await versionStateChange(db, { studioId, pieceId: p.id, versionId: last.id, ...s });
-				if (!r.ok) throw new Error(`Demo style: ${p.name} v${last.number} could not be ${s.state.replace('_', ' ')}: ${r.message}`);
+				const r = await versionStateChange(db, { studioId, pieceId: p.id, versionId: last.id, origin: null, ...s });
+				if (!r.ok) throw new Error(`Demo style: ${p.name} v${last.number} could not be ${s.action.action.replace('_', ' ')}: ${r.message}`);
 			}
 		}
 	} catch (e) {

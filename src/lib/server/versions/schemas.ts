@@ -48,7 +48,28 @@ export const versionSaveSchema = z.object({
 	metrics: z.unknown().optional()
 });
 
-export const versionStateSchema = z.object({ state: z.enum(['proposed', 'signed_off']) });
+/**
+ * The review of a version (POST …/versions/{versionId}/state): the author proposes it or withdraws the
+ * proposal; a signer signs a proposed version off (confirming, with an optional comment, acknowledging
+ * each seam warning and open fit note by its id) or sends it back with a reason.
+ */
+export const versionStateSchema = z.discriminatedUnion(
+	'action',
+	[
+		z.object({ action: z.literal('propose'), comment: z.string().trim().max(2000).default('') }),
+		z.object({ action: z.literal('withdraw') }),
+		z.object({
+			action: z.literal('sign_off'),
+			comment: z.string().trim().max(2000).default(''),
+			acknowledged: z.array(z.string().max(100)).max(500).default([])
+		}),
+		z.object({ action: z.literal('send_back'), reason: z.string().trim().min(1, 'Say why the version goes back, so its author knows what to change.').max(2000) })
+	],
+	'Say what to do: propose, withdraw, sign_off or send_back.'
+);
+
+/** A message in a version's comment thread. */
+export const versionCommentSchema = z.object({ body: z.string().trim().min(1, 'Write the comment first.').max(4000) });
 
 const vecSchema = z.object({ x: z.number().finite(), y: z.number().finite() });
 export const seamPairCreateSchema = z.object({

@@ -12,12 +12,16 @@ import type { RequestHandler } from './$types';
 
 const params = z.object({ studioId: z.string(), pieceId: uuidSchema, versionId: uuidSchema });
 
-/** Propose a draft (pattern cutter, owner) or sign a version off (designer, owner). */
+/**
+ * The review of a version: propose or withdraw (pattern cutter, owner), sign off or send back
+ * (designer, owner). See versionStateChange for the rules.
+ */
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const body = await readJson(event.request, versionStateSchema);
-	const { studioId, user, role } = await requireRole(event, body.state === 'signed_off' ? SIGNERS : EDITORS);
+	const signer = body.action === 'sign_off' || body.action === 'send_back';
+	const { studioId, user, role } = await requireRole(event, signer ? SIGNERS : EDITORS);
 	const { pieceId, versionId } = parseParams(event.params, params);
-	const r = await versionStateChange(db(), { studioId, pieceId, versionId, state: body.state, userId: user.id, role });
-	if (!r.ok) throw new ApiError(r.status, r.code, r.message);
+	const r = await versionStateChange(db(), { studioId, pieceId, versionId, action: body, user, role, origin: event.url.origin });
+	if (!r.ok) throw new ApiError(r.status, r.code, r.message, r.fields);
 	return json({ version: r.version });
 });

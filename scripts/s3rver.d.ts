@@ -1,0 +1,17 @@
+// The few parts of s3rver (no types of its own) that scripts/s3-dev.ts and the test set-ups use.
+declare module 's3rver' {
+	interface S3rverOptions {
+		address?: string;
+		port?: number;
+		directory?: string;
+		silent?: boolean;
+		vhostBuckets?: boolean;
+		resetOnClose?: boolean;
+		configureBuckets?: { name: string; configs: (string | Buffer)[] }[];
+	}
+	export default class S3rver {
+		constructor(options: S3rverOptions);
+		run(): Promise<{ address: string; port: number }>;
+		close(): Promise<void>;
+	}
+}
