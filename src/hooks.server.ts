@@ -5,6 +5,7 @@ import { DATABASE_RETRY_AFTER_S, DATABASE_UNAVAILABLE_MESSAGE, errorIsDatabaseUn
 import { databaseUnavailableJson, databaseUnavailablePage } from '$lib/server/db/unavailable-response';
 import { defaultErrorCode, defaultErrorMessage, jsonError } from '$lib/server/http-errors';
 import { cspNonce, scriptsWithNonce, securityHeadersSet } from '$lib/server/security-headers';
+import { storageOrigin } from '$lib/server/storage';
 
 const isApi = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
 
@@ -183,7 +184,8 @@ export const handle: Handle = async ({ event, resolve }) => {
 		response.headers.set('cache-control', 'no-store');
 	}
 	response = mutable(response);
-	securityHeadersSet(response.headers, nonce);
+	const photos = storageOrigin();
+	securityHeadersSet(response.headers, nonce, photos ? [photos] : []);
 	return response;
 };
 

@@ -71,7 +71,38 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/api/studios/[studioId]/billing/checkout': { POST: { path: '/api/studios/[studioId]/billing/checkout', json: {}, ok: 400 } },
 	'/api/studios/[studioId]/billing/portal': { POST: { path: '/api/studios/[studioId]/billing/portal', json: {}, ok: 400 } },
 	'/api/studios/[studioId]/billing/subscription': { PATCH: { path: '/api/studios/[studioId]/billing/subscription', json: {}, ok: 400 } },
-	'/api/billing/webhook': { POST: { path: '/api/billing/webhook', json: {}, ok: 400 } }
+	'/api/billing/webhook': { POST: { path: '/api/billing/webhook', json: {}, ok: 400 } },
+	// fittings, fit notes, the review of a version, e-mail settings (ids that do not exist: 404; bodies refused: 400)
+	'/api/me/notifications': {
+		GET: { path: '/api/me/notifications', ok: 200 },
+		PATCH: { path: '/api/me/notifications', json: {}, ok: 400 }
+	},
+	'/api/studios/[studioId]/styles/[styleId]/fittings': {
+		GET: { path: '/api/studios/[studioId]/styles/[styleId]/fittings', ok: 404 },
+		POST: { path: '/api/studios/[studioId]/styles/[styleId]/fittings', json: {}, ok: 400 }
+	},
+	'/api/studios/[studioId]/fittings/[fittingId]': {
+		GET: { path: '/api/studios/[studioId]/fittings/[fittingId]', ok: 404 },
+		DELETE: { path: '/api/studios/[studioId]/fittings/[fittingId]', ok: 404 }
+	},
+	'/api/studios/[studioId]/fittings/[fittingId]/photos': { POST: { path: '/api/studios/[studioId]/fittings/[fittingId]/photos', json: {}, ok: 404 } },
+	'/api/studios/[studioId]/fittings/[fittingId]/photos/[photoId]': { DELETE: { path: '/api/studios/[studioId]/fittings/[fittingId]/photos/[photoId]', ok: 404 } },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes': { POST: { path: '/api/studios/[studioId]/fittings/[fittingId]/notes', json: {}, ok: 400 } },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]': { PATCH: { path: '/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]', json: {}, ok: 400 } },
+	'/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]/done': {
+		POST: { path: '/api/studios/[studioId]/fittings/[fittingId]/notes/[noteId]/done', json: {}, ok: 400 }
+	},
+	'/api/studios/[studioId]/pieces/[pieceId]/fit-notes': { GET: { path: '/api/studios/[studioId]/pieces/[pieceId]/fit-notes', ok: 404 } },
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/comments': {
+		GET: { path: '/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/comments', ok: 404 },
+		POST: { path: '/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/comments', json: {}, ok: 400 }
+	},
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/review': {
+		GET: { path: '/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/review', ok: 404 }
+	},
+	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state': {
+		POST: { path: '/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state', json: {}, ok: 400 }
+	}
 };
 
 /** Route ids of the app, from the files under src/routes (as SvelteKit derives them). */

@@ -42,7 +42,9 @@ beforeAll(async () => {
 		made.push(await p.json());
 	}
 	signedPieceId = made[0].piece.id;
-	const r = await clients.designer.api('POST', `/api/studios/${studioId}/pieces/${signedPieceId}/versions/${made[0].version.id}/state`, { state: 'signed_off' });
+	const state = `/api/studios/${studioId}/pieces/${signedPieceId}/versions/${made[0].version.id}/state`;
+	expect((await c.api('POST', state, { action: 'propose' })).status).toBe(200);
+	const r = await clients.designer.api('POST', state, { action: 'sign_off' });
 	expect(r.status).toBe(200);
 }, 60_000);
 

@@ -219,9 +219,21 @@ describe('saving versions', () => {
 		expect(body.warnings).toHaveLength(1);
 		expect(body.warnings[0].message).toMatch(/waist to centre front: .* mm/);
 		const d = await signedInClient(app.baseUrl, designer);
-		const sign = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}/state`, { state: 'signed_off' });
+		const state = `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}/state`;
+		expect((await c.api('POST', state, { action: 'propose' })).status).toBe(200);
+		// the signer must acknowledge the seam out of tolerance; the acknowledgement is recorded
+		const sign = await d.api('POST', state, { action: 'sign_off' });
 		expect(sign.status).toBe(409);
-		expect((await sign.json()).error.message).toMatch(/trued/);
+		const refusal = (await sign.json()).error;
+		expect(refusal.code).toBe('needs_acknowledgement');
+		expect(refusal.message).toMatch(/waist to centre front: .* mm/);
+		expect(refusal.fields.acknowledged).toEqual([`seam:${(await pair.json()).seamPair.id}`]);
+		const acknowledged = await d.api('POST', state, { action: 'sign_off', comment: 'Eased in at the sewing stage.', acknowledged: refusal.fields.acknowledged });
+		expect(acknowledged.status).toBe(200);
+		const review = await (await d.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions/${body.version.id}/review`)).json();
+		const signedOff = review.reviews.find((r: { kind: string }) => r.kind === 'signed_off');
+		expect(signedOff.comment).toBe('Eased in at the sewing stage.');
+		expect(signedOff.acknowledged.map((a: { id: string }) => a.id)).toEqual(refusal.fields.acknowledged);
 	});
 
 	it('allows sign-off once the seam pair is corrected (its ease or moved edge ends patched)', async () => {
@@ -237,8 +249,10 @@ describe('saving versions', () => {
 		});
 		const pair = (await created.json()).seamPair;
 		const d = await signedInClient(app.baseUrl, designer);
-		const refused = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' });
+		expect((await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { action: 'propose' })).status).toBe(200);
+		const refused = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { action: 'sign_off' });
 		expect(refused.status).toBe(409);
+		expect((await refused.json()).error.code).toBe('needs_acknowledgement');
 		const aLen = Math.hypot(waist.p0.x - (waist.kind === 'line' ? waist.p1.x : waist.p3.x), waist.p0.y - (waist.kind === 'line' ? waist.p1.y : waist.p3.y));
 		const bLen = Math.hypot(cf.p0.x - (cf.kind === 'line' ? cf.p1.x : cf.p3.x), cf.p0.y - (cf.kind === 'line' ? cf.p1.y : cf.p3.y));
 		// the centre-front edge now ends where its length equals the waist's (as after truing an end)
@@ -248,7 +262,7 @@ describe('saving versions', () => {
 		expect(patched.status).toBe(200);
 		expect((await d.api('PATCH', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`, { toleranceMm: 3 })).status).toBe(403);
 		expect((await c.api('PATCH', `/api/studios/${studioId}/styles/${styleId}/seam-pairs/${pair.id}`, {})).status).toBe(400);
-		const signed = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' });
+		const signed = await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { action: 'sign_off' });
 		expect(signed.status).toBe(200);
 	});
 
@@ -277,11 +291,14 @@ describe('saving versions', () => {
 	it('lets a designer sign off a version; the earlier signed-off one becomes superseded', async () => {
 		const { pieceId, v1 } = await styleWithPiece();
 		const d = await signedInClient(app.baseUrl, designer);
-		expect((await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v1}/state`, { state: 'signed_off' })).status).toBe(200);
+		const state = (v: string) => `/api/studios/${studioId}/pieces/${pieceId}/versions/${v}/state`;
+		expect((await c.api('POST', state(v1), { action: 'propose' })).status).toBe(200);
+		expect((await d.api('POST', state(v1), { action: 'sign_off' })).status).toBe(200);
 		const { step, piece } = pivotStep(frontBodiceBlock());
 		const v2 = (await (await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'pivot', geometry: piece, recipe: [step] })).json()).version.id;
-		expect((await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v2}/state`, { state: 'signed_off' })).status).toBe(403);
-		expect((await d.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions/${v2}/state`, { state: 'signed_off' })).status).toBe(200);
+		expect((await c.api('POST', state(v2), { action: 'propose' })).status).toBe(200);
+		expect((await c.api('POST', state(v2), { action: 'sign_off' })).status).toBe(403);
+		expect((await d.api('POST', state(v2), { action: 'sign_off' })).status).toBe(200);
 		const list = (await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions`)).json()).versions as { number: number; state: string }[];
 		expect(list.map((v) => [v.number, v.state])).toEqual([
 			[2, 'signed_off'],

@@ -9,17 +9,16 @@ function tooLarge(): ApiError {
 	return new ApiError(
 		413,
 		'file_too_large',
-		`The photo is larger than ${PHOTO_FILE_LIMIT_BYTES / 1024 / 1024} MB; nothing was stored. Send a smaller export of it.`,
-		undefined,
-		{ connection: 'close' }
+		`The photo is larger than ${PHOTO_FILE_LIMIT_BYTES / 1024 / 1024} MB; nothing was stored. Send a smaller export of it.`
 	);
 }
 
 /**
  * Reads a multipart upload (one file in the field "file") without ever holding more than the limit:
- * a declared Content-Length over it is refused before reading, and the bytes are counted while they
- * stream in; past the limit the rest is read and dropped (so the client, still sending, receives the
- * 413 rather than a broken connection). adapter-node's BODY_SIZE_LIMIT bounds what that costs.
+ * a declared Content-Length over it is refused before reading a byte (Node's server then reads the rest
+ * and drops it, so the client, still sending, receives the 413 rather than a broken connection), and
+ * the bytes are counted while they stream in; past the limit the rest is read and dropped too.
+ * adapter-node's BODY_SIZE_LIMIT (16M in `npm start`) bounds what that costs.
  */
 export async function photoFileRead(request: Request): Promise<{ name: string; bytes: Uint8Array }> {
 	const type = request.headers.get('content-type') ?? '';

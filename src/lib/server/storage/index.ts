@@ -38,6 +38,10 @@ export function storageConfig(env: NodeJS.ProcessEnv = process.env): StorageConf
 	};
 }
 
+// The SDK warns once that releases after January 2027 will need Node 22. This project pins its version
+// exactly (package-lock), so the warning says nothing a user of the app can act on.
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
+
 let cached: { key: string; client: S3Client } | undefined;
 
 function client(config: StorageConfig): S3Client {
