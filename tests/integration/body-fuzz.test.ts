@@ -58,8 +58,21 @@ beforeAll(async () => {
 		.values({ studio_id: studioId, name: `Fuzz client ${Date.now()}`, kind: 'client', values: JSON.stringify([]), created_by: ownerUser.id })
 		.returning('id')
 		.executeTakeFirstOrThrow();
+	// a fitting of the style with a note on the piece (the demo fitting when there is one)
+	const fitting =
+		(await db.selectFrom('fittings').select('id').where('style_id', '=', style.id).executeTakeFirst()) ??
+		(await db.insertInto('fittings').values({ style_id: style.id, fitted_on: '2026-12-03', title: 'Fuzz fitting', fit_model: 'A', created_by: ownerUser.id }).returning('id').executeTakeFirstOrThrow());
+	const note =
+		(await db.selectFrom('fit_notes').select('id').where('fitting_id', '=', fitting.id).executeTakeFirst()) ??
+		(await db
+			.insertInto('fit_notes')
+			.values({ fitting_id: fitting.id, piece_id: piece.id, version_id: piece.head_version_id!, x_mm: 0, y_mm: 0, category: 'other', body: 'Fuzz note', created_by: ownerUser.id })
+			.returning('id')
+			.executeTakeFirstOrThrow());
 	Object.assign(ids, {
 		studioId,
+		fittingId: fitting.id,
+		noteId: note.id,
 		styleId: style.id,
 		pieceId: piece.id,
 		versionId: piece.head_version_id!,
