@@ -62,6 +62,8 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/styles/[styleId]/print': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/cutting-list': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/import': { GET: EDITORS },
+	'/studios/[studioId]/fittings/[fittingId]': { GET: ALL_ROLES },
+	'/settings/notifications': { GET: 'signed_in', POST: 'signed_in' },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)
 	'/studios/[studioId]/measurements': { GET: ALL_ROLES },
 	'/studios/[studioId]/measurements/new': { GET: EDITORS, POST: EDITORS },

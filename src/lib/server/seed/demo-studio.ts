@@ -7,6 +7,7 @@ import { membershipsAddIfAbsent, membershipsForUser } from '../repositories/memb
 import { studiosCreate } from '../repositories/studios';
 import { usersByEmail, usersCreate } from '../repositories/users';
 import { demoBillingSeed } from './demo-billing';
+import { demoFittingSeed } from './demo-fitting';
 import { demoStyleSeed } from './demo-style';
 
 export interface DemoSeedResult {
@@ -19,7 +20,8 @@ export interface DemoSeedResult {
 /**
  * Seeds the demo studio of our own scenario (fixtures/demo-studio.json). Idempotent: the studio is
  * found through its owner's membership, users by e-mail; nothing is duplicated on a second run. Then the
- * demo style of the same scenario (demo-style.ts), skipped when the studio already has it.
+ * demo style of the same scenario (demo-style.ts), skipped when the studio already has it, and its first
+ * fitting (demo-fitting.ts: photos go to the object store, which must be running).
  */
 export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
 	const seeded = await db.transaction().execute(async (tx) => {
@@ -40,8 +42,12 @@ export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
 	});
 	// The demo style (its own idempotence: skipped when the studio has it). Outside the transaction above:
 	// every version is verified and saved through versionSave, which opens its own transactions.
-	const { patterncutter, designer } = seeded.userIds;
-	if (patterncutter && designer) await demoStyleSeed(db, seeded.studioId, { patterncutter, designer });
+	const { patterncutter, designer, sampleroom } = seeded.userIds;
+	if (patterncutter && designer) {
+		const style = await demoStyleSeed(db, seeded.studioId, { patterncutter, designer });
+		// its first toile fitting: photos (drawn by us) in the object store, two fit notes (own idempotence)
+		if (sampleroom) await demoFittingSeed(db, seeded.studioId, style.styleId, { sampleroom, patterncutter });
+	}
 	// the demo's plans: this studio on Studio with its seats paid, a second one on Sketch at its limits
 	const { sketchStudioId } = await demoBillingSeed(db, seeded.studioId);
 	return { studioId: seeded.studioId, created: seeded.created, sketchStudioId };

@@ -6,6 +6,11 @@ import { db } from '$lib/server/db';
 import { versionsOfPiece } from '$lib/server/repositories/versions';
 import { pieceOr404, seesOnlySignedOff, styleOr404, versionOr404 } from '$lib/server/versions/access';
 import { versionShown } from '$lib/server/versions/overview';
+import { fitNoteShowsOn } from '$lib/fittings/notes';
+import { fitNoteJson } from '$lib/server/fittings/view';
+import { fitNotesOfPieces } from '$lib/server/repositories/fit-notes';
+import { versionCommentsOf } from '$lib/server/repositories/version-comments';
+import { versionReviewsOf } from '$lib/server/repositories/version-reviews';
 import type { PageServerLoad } from './$types';
 
 const params = z.object({ styleId: z.uuid(), pieceId: z.uuid(), versionId: z.uuid() });
@@ -41,6 +46,10 @@ export const load: PageServerLoad = async (event) => {
 			recipe: ((v!.recipe ?? []) as { op: string }[]).map((s) => s.op)
 		},
 		head: head ? { id: head.id, number: head.number } : null,
-		versions
+		versions,
+		// fit notes shown on this version (pins), its review record and comment thread
+		pins: (await fitNotesOfPieces(db(), [piece!.id])).filter((n) => fitNoteShowsOn(n, piece!.id, v!.number)).map(fitNoteJson),
+		reviews: (await versionReviewsOf(db(), v!.id)).map((r) => ({ ...r, createdAt: r.createdAt.toISOString() })),
+		comments: (await versionCommentsOf(db(), v!.id)).map((c) => ({ ...c, createdAt: c.createdAt.toISOString() }))
 	};
 };
