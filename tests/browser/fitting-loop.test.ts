@@ -62,14 +62,16 @@ describe('back from the fitting', () => {
 		// a note pinned on the band: a click on its drawing gives the point
 		const seg = band.outline.segments.find((s) => s.kind === 'line') ?? band.outline.segments[0];
 		const end = seg.kind === 'line' ? seg.p1 : seg.p3;
-		const notchAt = { x: (seg.p0.x + end.x) / 2, y: (seg.p0.y + end.y) / 2 };
+		const notchAt = { x: Math.round((seg.p0.x + end.x) * 5) / 10, y: Math.round((seg.p0.y + end.y) * 5) / 10 };
 		await room.page.locator('[data-testid="pin-canvas"] svg').click();
-		await room.page.fill('input[type="number"] >> nth=0', String(notchAt.x));
-		await room.page.fill('input[type="number"] >> nth=1', String(notchAt.y));
-		await room.page.selectOption('select:near(:text("Category"))', 'seam_placement');
-		await room.page.fill('textarea[placeholder^="let out"]', 'Mark the seam: add a notch here so the band meets the upper front at the same point.');
-		await room.page.selectOption('select:near(:text("For"))', { label: demo().users.find((u) => u.role === 'patterncutter')!.name });
+		await room.page.fill('#note-x', String(notchAt.x));
+		await room.page.fill('#note-y', String(notchAt.y));
+		await room.page.selectOption('#note-category', 'seam_placement');
+		await room.page.fill('#note-body', 'Mark the seam: add a notch here so the band meets the upper front at the same point.');
+		await room.page.selectOption('#note-for', { label: demo().users.find((u) => u.role === 'patterncutter')!.name });
 		await room.page.click('button:has-text("Pin the note")');
+		await room.page.waitForSelector('[data-testid="fit-note"], form [role="alert"]');
+		expect(await room.page.locator('form [role="alert"]').allTextContents()).toEqual([]);
 		await expect.poll(() => room.page.locator('[data-testid="fit-note"]').count()).toBe(1);
 		await expect.poll(() => room.page.locator('[data-testid="pin-mark"]').count()).toBe(1);
 		await pageScreenshot(room.page, 'fitting-page');
