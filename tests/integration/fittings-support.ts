@@ -3,7 +3,7 @@
 import { expect, inject } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Role } from '../../src/lib/server/db/schema';
-import { Client, memberAdd, SESSION_COOKIE, sessionClient, studioMake, userMake } from './helpers';
+import { Client, memberAdd, SESSION_COOKIE, sessionClient, studioMake, studioOnStudioPlan, userMake } from './helpers';
 
 export interface FittingWorld {
 	studioId: string;
@@ -24,6 +24,8 @@ export function storageEnvUse(): void {
 export async function fittingWorld(baseUrl: string, label: string): Promise<FittingWorld> {
 	const studio = await studioMake(label);
 	const other = await studioMake(`${label} elsewhere`);
+	// four members: more than the free plan's seats
+	await studioOnStudioPlan(studio.id);
 	const users = {} as FittingWorld['users'];
 	const as = {} as FittingWorld['as'];
 	for (const role of ['owner', 'patterncutter', 'designer', 'sampleroom'] as const) {
