@@ -36,7 +36,9 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/[studioId]/measurements/new': `${s}/measurements/new`,
 		'/studios/[studioId]/measurements/compare': `${s}/measurements/compare?a=${d.setIds[0]}&b=${d.setIds[1]}`,
 		'/studios/[studioId]/measurements/[setId]': `${s}/measurements/${d.setIds[0]}`,
-		'/studios/[studioId]/measurements/[setId]/edit': `${s}/measurements/${d.clientSetId}/edit`
+		'/studios/[studioId]/measurements/[setId]/edit': `${s}/measurements/${d.clientSetId}/edit`,
+		'/studios/[studioId]/fittings/[fittingId]': `${s}/fittings/${d.fittingId}`,
+		'/settings/notifications': '/settings/notifications'
 	};
 }
 

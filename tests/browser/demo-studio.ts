@@ -20,6 +20,8 @@ export interface DemoStudio {
 	setIds: [string, string];
 	/** a client set (editable, unlike the charts) */
 	clientSetId: string;
+	/** the demo style's first fitting (photos, two notes) */
+	fittingId: string;
 	users: { email: string; name: string; role: Role }[];
 	password: string;
 	/** the second demo studio, on the free Sketch plan, and its people (same password) */
@@ -47,8 +49,10 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 			const cutter = await usersByEmail(db, demo.users.find((u) => u.role === 'patterncutter')!.email);
 			client = await measurementSetDuplicate(db, studioId, sets[0].id, cutter!.id, NAME);
 		}
+		const fitting = await db.selectFrom('fittings').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirstOrThrow();
 		return {
 			studioId,
+			fittingId: fitting.id,
 			styleId: style.id,
 			signedOff: signed,
 			setIds: [sets[0].id, sets[1].id],
