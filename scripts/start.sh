@@ -31,7 +31,7 @@ trap cleanup EXIT INT TERM
 
 # The local object store for photos (before the seed, which stores the demo fitting's photos).
 export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET="${S3_BUCKET:-dartelier-photos}"
-S3_DEV_PORT="$S3_PORT" S3_DEV_DIR=".run/s3/$CLUSTER" npx tsx scripts/s3-dev.ts >"$RUN_DIR/s3-dev.log" 2>&1 &
+S3_DEV_PORT="$S3_PORT" S3_DEV_DIR=".run/s3/$CLUSTER" node --import tsx scripts/s3-dev.ts >"$RUN_DIR/s3-dev.log" 2>&1 &
 S3_PID=$!
 for _ in $(seq 1 300); do
 	grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" 2>/dev/null && break
@@ -55,13 +55,13 @@ else
 	say "the app is built and up to date"
 fi
 
-MAIL_DEV_SMTP_PORT="$MAIL_SMTP_PORT" MAIL_DEV_HTTP_PORT="$MAIL_HTTP_PORT" npx tsx scripts/mail-dev.ts >"$RUN_DIR/mail-dev.log" 2>&1 &
+MAIL_DEV_SMTP_PORT="$MAIL_SMTP_PORT" MAIL_DEV_HTTP_PORT="$MAIL_HTTP_PORT" node --import tsx scripts/mail-dev.ts >"$RUN_DIR/mail-dev.log" 2>&1 &
 MAIL_PID=$!
 if [ "$USE_PAYMENTS_FAKE" = 1 ]; then
 	export STRIPE_SECRET_KEY=sk_test_dartelier_local STRIPE_WEBHOOK_SECRET=whsec_dartelier_local
 	export STRIPE_API_HOST=127.0.0.1 STRIPE_API_PORT="$PAYMENTS_PORT" STRIPE_API_PROTOCOL=http
 	PAYMENTS_FAKE_PORT="$PAYMENTS_PORT" PAYMENTS_FAKE_WEBHOOK_URL="http://127.0.0.1:$APP_PORT/api/billing/webhook" \
-		npx tsx scripts/payments-dev.ts >"$RUN_DIR/payments-dev.log" 2>&1 &
+		node --import tsx scripts/payments-dev.ts >"$RUN_DIR/payments-dev.log" 2>&1 &
 	PAYMENTS_PID=$!
 fi
 
