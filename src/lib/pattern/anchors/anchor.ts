@@ -82,8 +82,7 @@ export function anchorBodyLike(target: Piece, base: AnchorBody): AnchorBody {
 			if (a) landmarks.push({ ...l, point: a.point });
 			continue;
 		}
-		const k = base.seams.findIndex((s) => vecDistance(s.start, l.point) === 0);
-		if (k >= 0) landmarks.push({ ...l, point: seams[k].start });
+		if (l.at) landmarks.push({ ...l, point: l.at.end ? segmentEnd(segs[l.at.segment]) : segs[l.at.segment].p0 });
 	}
 	for (const a of target.apexes) if (!landmarks.some((l) => l.name === a.id)) landmarks.push({ name: a.id, point: a.point, kind: 'apex' });
 	return { piece: target, seams, landmarks };

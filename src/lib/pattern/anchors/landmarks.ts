@@ -1,4 +1,4 @@
-import { vecDistance, type Vec } from '../kernel';
+import { segmentEnd, vecDistance, type Vec } from '../kernel';
 import { pieceSeams, type PieceSeam } from '../piece-seams';
 import type { Piece } from '../piece-schema';
 
@@ -13,7 +13,9 @@ import type { Piece } from '../piece-schema';
 export interface Landmark {
 	readonly name: string;
 	readonly point: Vec;
-	readonly kind: 'apex' | 'corner';
+	readonly kind: 'apex' | 'corner' | 'point';
+	/** Where on the outline it is: the start (or end) of that segment (corners and points). */
+	readonly at?: { readonly segment: number; readonly end: boolean };
 }
 
 /** Trade names of the corners the drafts make, keyed by the two seams in either order. */
@@ -47,11 +49,21 @@ export function cornerName(before: string, after: string): string {
 export function pieceLandmarks(piece: Piece, seams: readonly PieceSeam[] = pieceSeams(piece)): Landmark[] {
 	const out: Landmark[] = piece.apexes.map((a) => ({ name: a.id, point: a.point, kind: 'apex' as const }));
 	const corners: Landmark[] = [];
+	const segs = piece.outline.segments;
 	for (let k = 0; k < seams.length; k++) {
 		const prev = seams[(k - 1 + seams.length) % seams.length];
 		const here = seams[k];
-		if (seams.length < 2) break;
-		corners.push({ name: cornerName(prev.name, here.name), point: here.start, kind: 'corner' });
+		const first = here.segmentIndices[0];
+		if (seams.length >= 2) corners.push({ name: cornerName(prev.name, here.name), point: here.start, kind: 'corner', at: { segment: first, end: false } });
+		// the points between a seam's segments, and either side of a dart or pleat mouth it runs across
+		let n = 0;
+		for (let j = 0; j < here.segmentIndices.length - 1; j++) {
+			const i = here.segmentIndices[j];
+			const next = here.segmentIndices[j + 1];
+			const end = segmentEnd(segs[i]);
+			corners.push({ name: `${here.name}, point ${++n}`, point: end, kind: 'point', at: { segment: i, end: true } });
+			if (vecDistance(end, segs[next].p0) > 1e-9) corners.push({ name: `${here.name}, point ${++n}`, point: segs[next].p0, kind: 'point', at: { segment: next, end: false } });
+		}
 	}
 	const count = new Map<string, number>();
 	for (const c of corners) count.set(c.name, (count.get(c.name) ?? 0) + 1);

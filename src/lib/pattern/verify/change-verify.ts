@@ -85,7 +85,7 @@ function apexTotals(pieces: readonly Piece[]): Map<string, { angle: number; labe
 }
 
 /** The cross-piece checks of one recomputed step; the first failure is returned as a problem. */
-function stepChecks(i: number, step: ChangeStep, o: StepOutcome, stored: readonly StoredSeamPair[], sourceIds: readonly (string | null)[]): { checks: ChangeCheck[]; problem?: ChangeProblem } {
+export function changeStepChecks(i: number, step: ChangeStep, o: StepOutcome, stored: readonly StoredSeamPair[], sourceIds: readonly (string | null)[]): { checks: ChangeCheck[]; problem?: ChangeProblem } {
 	const checks: ChangeCheck[] = [];
 	const tol = DEFAULT_SHAPING_TOLERANCES;
 	const name = `Step ${i + 1} (${step.op})`;
@@ -194,7 +194,7 @@ export function changeVerify(bases: ReadonlyMap<string, Piece>, steps: readonly 
 	const ledger: LedgerEntry[] = [];
 	for (const [i, o] of rc.steps.entries()) {
 		const ids = steps[i].sources.map((s) => ('pieceId' in s ? s.pieceId : null));
-		const r = stepChecks(i, steps[i], o, stored, ids);
+		const r = changeStepChecks(i, steps[i], o, stored, ids);
 		checks.push(...r.checks);
 		if (r.problem) return fail({ ...r.problem, message: `${r.problem.message} Nothing was saved.`, details: r.checks.filter((c) => !c.passed).map((c) => c.message) });
 		ledger.push(...o.result.ledgerEntries, ...(steps[i].declared ?? []));
