@@ -1,5 +1,6 @@
 import type { Outline, Vec } from './types';
 import { outlineSelfIntersections } from './self-intersect';
+import { outlineSelfIntersectionsBetweenParts } from './self-intersect-parts';
 import { segmentLength } from './segment-length';
 import { segmentEnd } from './segment';
 import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM, MIN_SEGMENT_LENGTH_MM } from './tolerance';
@@ -90,9 +91,14 @@ export function outlineShortSegmentProblems(outline: Outline, minLength = MIN_SE
 	return out;
 }
 
-/** Places where the outline crosses or touches itself. */
-export function outlineSelfIntersectionProblems(outline: Outline, tolerance = INTERSECTION_TOLERANCE_MM): OutlineProblem[] {
-	return outlineSelfIntersections(outline, true, tolerance).map((h) => ({
+/**
+ * Places where the outline crosses or touches itself. With `cleanParts` (segment i's part, or −1) the
+ * segments of one part are taken to be free of crossings among themselves and only pairs across parts
+ * (and the segments of no part) are searched: outlineSelfIntersectionsBetweenParts.
+ */
+export function outlineSelfIntersectionProblems(outline: Outline, tolerance = INTERSECTION_TOLERANCE_MM, cleanParts?: ArrayLike<number>): OutlineProblem[] {
+	const hits = cleanParts ? outlineSelfIntersectionsBetweenParts(outline, cleanParts, true, tolerance) : outlineSelfIntersections(outline, true, tolerance);
+	return hits.map((h) => ({
 		code: 'self-intersection' as const,
 		segmentIndex: h.segmentIndex,
 		point: h.point,
@@ -103,18 +109,26 @@ export function outlineSelfIntersectionProblems(outline: Outline, tolerance = IN
 	}));
 }
 
+/** What outlineProblems searches (see there). */
+export interface OutlineCheckOptions {
+	readonly selfIntersection?: boolean;
+	readonly cleanParts?: ArrayLike<number>;
+}
+
 /**
  * Every problem of an outline: empty, non-finite coordinates, not closed, too-short segments,
  * self-intersections. Never throws. Non-finite outlines are not checked further.
  * `selfIntersection: false` leaves out the crossing search (for parts whose construction already rules
- * crossings out).
+ * crossings out). `cleanParts` names, for each segment, a part known to be free of crossings on its own
+ * (or −1): the crossing search then tests only pairs across parts (outlineSelfIntersectionsBetweenParts);
+ * without it every pair is searched.
  */
-export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}, options: { selfIntersection?: boolean } = {}): OutlineProblem[] {
+export function outlineProblems(outline: Outline, tolerances: OutlineTolerances = {}, options: OutlineCheckOptions = {}): OutlineProblem[] {
 	if (outline.segments.length === 0) return [{ code: 'empty', message: 'The outline has no segments.' }];
 	const closure = tolerances.closure ?? CLOSURE_TOLERANCE_MM;
 	const minLength = tolerances.minSegmentLength ?? MIN_SEGMENT_LENGTH_MM;
 	const intersection = tolerances.intersection ?? INTERSECTION_TOLERANCE_MM;
-	const crossings = (): OutlineProblem[] => (options.selfIntersection === false ? [] : outlineSelfIntersectionProblems(outline, intersection));
+	const crossings = (): OutlineProblem[] => (options.selfIntersection === false ? [] : outlineSelfIntersectionProblems(outline, intersection, options.cleanParts));
 	if (plainlyClean(outline, closure, minLength)) return crossings();
 	const nonFinite = outlineNonFiniteProblems(outline);
 	if (nonFinite.length > 0) return nonFinite;

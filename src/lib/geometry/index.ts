@@ -21,7 +21,8 @@ export {
 	segmentSplitAtMany
 } from './split';
 export * from './intersect';
-export * from './self-intersect';
+export { outlineSelfIntersections, outlineSelfIntersectionsByAllPairs, outlineSelfIntersectionsByGrid, segmentSelfIntersection } from './self-intersect';
+export { outlineSelfIntersectionsBetweenParts } from './self-intersect-parts';
 export * from './point-in';
 export * from './checks';
 export * from './flatten';

@@ -100,11 +100,12 @@ export function outlineSelfIntersectionsByAllPairs(chain: SegmentChain, closed =
 	return out;
 }
 
-/** Loops inside single cubics. */
-function loopHits(segs: readonly Segment[]): ChainHit[] {
+/** Loops inside single cubics (only the segments `only` accepts, when given; internal, for self-intersect-parts.ts). */
+export function loopHits(segs: readonly Segment[], only?: (i: number) => boolean): ChainHit[] {
 	const out: ChainHit[] = [];
 	for (let i = 0; i < segs.length; i++) {
 		const s = segs[i];
+		if (only && !only(i)) continue;
 		// a loop needs both x and y to turn back; a coordinate with monotone control values cannot
 		if (s.kind === 'line' || monotone(s.p0.x, s.p1.x, s.p2.x, s.p3.x) || monotone(s.p0.y, s.p1.y, s.p2.y, s.p3.y)) continue;
 		for (const h of segmentSelfIntersection(s)) out.push({ segmentIndex: i, t: h.ta, otherSegmentIndex: i, otherT: h.tb, point: h.point });
@@ -140,8 +141,8 @@ function linesMayTouch(a: LineSegment, b: LineSegment, nextOfA: boolean, bEndIsA
 
 const monotone = (a: number, b: number, c: number, d: number): boolean => (a <= b && b <= c && c <= d) || (a >= b && b >= c && c >= d);
 
-/** Crossings of segments i < j, without the touching of neighbours at their shared vertex. */
-function pairHits(segs: readonly Segment[], i: number, j: number, closed: boolean, tolerance: number, vertexTolerance: number, out: ChainHit[]): void {
+/** Crossings of segments i < j, without the touching of neighbours at their shared vertex (internal, for self-intersect-parts.ts). */
+export function pairHits(segs: readonly Segment[], i: number, j: number, closed: boolean, tolerance: number, vertexTolerance: number, out: ChainHit[]): void {
 	const n = segs.length;
 	const nextOfI = j === i + 1;
 	const wrap = closed && i === 0 && j === n - 1 && n > 1;

@@ -1,4 +1,4 @@
-import { outlineProblems, vecDistance } from './kernel';
+import { outlineProblems, vecDistance, type OutlineCheckOptions } from './kernel';
 import type { LedgerEntry } from './ledger';
 import { pieceStructureProblems } from './piece';
 import type { Piece } from './piece-schema';
@@ -54,9 +54,10 @@ export function refuse(code: OperationErrorCode, message: string): OperationResu
 /**
  * Problems of a finished piece that make an operation refuse: the kernel's outline checks (touching at
  * an apex is allowed: block darts that share an apex meet there) and the piece's own structure.
- * `selfIntersection: false` leaves out the crossing search (parts simple by construction).
+ * `selfIntersection: false` leaves out the crossing search (parts simple by construction); `cleanParts`
+ * limits it to pairs across parts each known to be free of crossings (outlineProblems).
  */
-export function resultProblems(piece: Piece, options: { selfIntersection?: boolean } = {}): string[] {
+export function resultProblems(piece: Piece, options: OutlineCheckOptions = {}): string[] {
 	const apexPoints = piece.apexes.map((a) => a.point);
 	const outline = outlineProblems(piece.outline, {}, options).filter(
 		(p) => !(p.code === 'self-intersection' && p.point && apexPoints.some((a) => vecDistance(a, p.point!) < 1e-3))
@@ -64,8 +65,14 @@ export function resultProblems(piece: Piece, options: { selfIntersection?: boole
 	return [...outline.map((p) => p.message), ...pieceStructureProblems(piece)];
 }
 
-export function succeed(piece: Piece, ledgerEntries: readonly LedgerEntry[], report: OperationReport): OperationResult {
-	const problems = resultProblems(piece);
+/**
+ * The operation's result, after resultProblems. `checks.cleanParts`: the operation made the outline of
+ * parts that are rigid images of stretches of its (checked) input, so each is clean on its own and only
+ * crossings between parts are searched for (see outlineSelfIntersectionsBetweenParts). The server checks
+ * every saved geometry in full all the same (versionVerify).
+ */
+export function succeed(piece: Piece, ledgerEntries: readonly LedgerEntry[], report: OperationReport, checks: OutlineCheckOptions = {}): OperationResult {
+	const problems = resultProblems(piece, checks);
 	if (problems.length > 0) {
 		return refuse(
 			'result_broken',

@@ -60,6 +60,13 @@ export interface OpenWedgesOutput {
 	readonly remainingDart: { leg1End: Vec; leg2End: Vec } | null;
 	/** Rotation (about the apex) that carries a marking at this point of the original piece. */
 	readonly rotationForPoint: (p: Vec) => number;
+	/**
+	 * For each segment of `outline`: the chain (≥ 0) of the original outline it is a rigidly turned piece of,
+	 * or −1 for a new or changed segment (wedge legs, the segment where the closed dart's legs meet). Each
+	 * chain is as free of crossings as the original outline was, so the result's check needs only pairs
+	 * across chains (outlineProblems' `cleanParts`).
+	 */
+	readonly rigidParts: Int32Array;
 	readonly notes: readonly string[];
 }
 
@@ -129,6 +136,7 @@ export function openWedges(
 			})),
 			remainingDart: v.remainingDart ? { leg1End: v.remainingDart.leg2End, leg2End: v.remainingDart.leg1End } : null,
 			rotationForPoint: v.rotationForPoint,
+			rigidParts: v.rigidParts.slice().reverse(),
 			notes: v.notes
 		}
 	};
@@ -235,9 +243,14 @@ function openForward(
 	const rotated = chains.map((ch, c) => (rot[c] === 0 ? ch : pathRotateAbout({ segments: ch }, P, rot[c]).segments));
 
 	const out: Segment[] = [];
+	// the chain each segment of out is a turned piece of, or −1 (new)
+	const partOf: number[] = [];
 	const openings: OpenedWedge[] = [];
 	for (let c = 0; c <= m; c++) {
-		for (const s of rotated[c]) out.push(s);
+		for (const s of rotated[c]) {
+			out.push(s);
+			partOf.push(c);
+		}
 		if (c === m) break;
 		const tg = targets[c];
 		const S = chains[c + 1][0].p0;
@@ -247,9 +260,11 @@ function openForward(
 			const qa = pointRotateAbout(tg.request.pivot, P, rot[c]);
 			const qb = pointRotateAbout(tg.request.pivot, P, rot[c + 1]);
 			out.push(lineSegment(a, qa), lineSegment(qa, P), lineSegment(P, qb), lineSegment(qb, b));
+			partOf.push(-1, -1, -1, -1);
 			openings.push({ requestIndex: tg.requestIndex, leg1End: a, leg2End: b, pivot1: qa, pivot2: qb, angleRad: tg.request.angleRad, movedLeg: 'leg1', at: S });
 		} else {
 			out.push(lineSegment(a, P), lineSegment(P, b));
+			partOf.push(-1, -1);
 			openings.push({ requestIndex: tg.requestIndex, leg1End: a, leg2End: b, angleRad: tg.request.angleRad, movedLeg: 'leg1', at: S });
 		}
 	}
@@ -257,14 +272,17 @@ function openForward(
 	let remainingDart: { leg1End: Vec; leg2End: Vec } | null = null;
 	if (keepAngleRad > 1e-12) {
 		out.push(lineSegment(L1, P), lineSegment(P, L2moved));
+		partOf.push(-1, -1);
 		remainingDart = { leg1End: L1, leg2End: L2moved };
 	} else {
 		const gap = vecDistance(L1, L2moved);
 		if (gap <= 1e-6) {
 			out[0] = segmentWithStart(out[0], L1);
-			mergeCollinearAtStart(out);
+			partOf[0] = -1;
+			if (mergeCollinearAtStart(out)) partOf.pop();
 		} else {
 			out.push(lineSegment(L1, L2moved));
+			partOf.push(-1);
 			notes.push(`The legs of dart "${dartId}" differ by ${gap.toFixed(2)} mm; the closed dart leaves a step along the leg line.`);
 		}
 	}
@@ -294,7 +312,7 @@ function openForward(
 		while (c < m && targetSectors[c] <= a) c++;
 		return rot[c];
 	};
-	return { ok: true, value: { outline: { segments: out }, openings, remainingDart, rotationForPoint, notes } };
+	return { ok: true, value: { outline: { segments: out }, openings, remainingDart, rotationForPoint, rigidParts: Int32Array.from(partOf), notes } };
 }
 
 function segsPoint(segs: readonly Segment[], i: number, t: number): Vec {
@@ -304,17 +322,18 @@ function segsPoint(segs: readonly Segment[], i: number, t: number): Vec {
 	return segmentEnd(a);
 }
 
-/** Where a fully closed dart leaves two straight, collinear segments meeting at the outline start, join them. */
-function mergeCollinearAtStart(out: Segment[]): void {
+/** Where a fully closed dart leaves two straight, collinear segments meeting at the outline start, join them (true if it did). */
+function mergeCollinearAtStart(out: Segment[]): boolean {
 	const first = out[0];
 	const last = out[out.length - 1];
-	if (first.kind !== 'line' || last.kind !== 'line' || out.length < 4) return;
+	if (first.kind !== 'line' || last.kind !== 'line' || out.length < 4) return false;
 	const u = vecSub(last.p1, last.p0);
 	const v = vecSub(first.p1, first.p0);
 	const lu = Math.hypot(u.x, u.y);
 	const lv = Math.hypot(v.x, v.y);
-	if (lu === 0 || lv === 0) return;
-	if (Math.abs(vecCross(u, v)) / (lu * lv) > 1e-12 || vecDot(u, v) <= 0) return;
+	if (lu === 0 || lv === 0) return false;
+	if (Math.abs(vecCross(u, v)) / (lu * lv) > 1e-12 || vecDot(u, v) <= 0) return false;
 	out[0] = lineSegment(last.p0, first.p1);
 	out.pop();
+	return true;
 }

@@ -61,6 +61,8 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 	if (dart.cap) notes.push('The cap was cleared: true it again for the new position.');
 	notes.push(pressPracticeNote(newId, pressToward));
 	if (dart.pullBack && !moved.pullBack) notes.push(`The ${fmtMm(dart.pullBack.clearanceMm)} clearance no longer fits the new dart and was removed.`);
+	// the input piece is clean (every stored version and every result is checked): each side the engine
+	// turned or kept is clean on its own, so only crossings between them, and of the new legs, are searched
 	return succeed(next, entries, {
 		op: 'pivot',
 		summary: `Dart "${dart.id}" (${fmtDeg(g.angleRad)} at ${where}) moved: intake ${fmtMm(g.intakeMm)} at ${fmtMm(g.leg1LengthMm)} becomes ${fmtMm(ng.intakeMm)} at ${fmtMm(ng.leg1LengthMm)}.`,
@@ -72,5 +74,5 @@ export function pivot(piece: Piece, params: PivotParams): OperationResult {
 			newLegLengthMm: ng.leg1LengthMm
 		},
 		notes
-	});
+	}, { cleanParts: r.value.rigidParts });
 }

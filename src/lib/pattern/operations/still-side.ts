@@ -117,6 +117,8 @@ export function openWedgesKeepingStill(
 			const a = v.rotationForPoint(p);
 			return vecDistance(p, apex) < 1e-9 ? 0 : a - alpha;
 		},
+		// the whole outline turns: every chain stays one rigid piece
+		rigidParts: v.rigidParts,
 		notes: v.notes
 	};
 	return { ok: true, value, still: anchor };
