@@ -1,3 +1,4 @@
+import { ScratchArrays } from './scratch';
 import type { Segment } from './types';
 
 /**
@@ -22,6 +23,8 @@ import type { Segment } from './types';
  */
 
 const MAX_CHAINS = 1024;
+/** The working arrays of the pieces and chains (see scratch.ts); pieces beyond the count are never read. */
+const scratch = new ScratchArrays();
 /** Give up (answer null) when the chain comparisons cost more than this many times the piece count. */
 const WORK_PER_PIECE = 16;
 
@@ -87,11 +90,11 @@ function monotonePieces(segs: readonly Segment[]): Pieces | null {
 	const turns = new Float64Array(4);
 	let cap = 0;
 	for (const s of segs) cap += s.kind === 'line' ? 1 : 1 + cubicTurns(s, turns);
-	const seg = new Int32Array(cap);
-	const x0 = new Float64Array(cap);
-	const y0 = new Float64Array(cap);
-	const x1 = new Float64Array(cap);
-	const y1 = new Float64Array(cap);
+	const seg = scratch.int32(0, cap);
+	const x0 = scratch.float64(0, cap);
+	const y0 = scratch.float64(1, cap);
+	const x1 = scratch.float64(2, cap);
+	const y1 = scratch.float64(3, cap);
 	let m = 0;
 	for (let i = 0; i < segs.length; i++) {
 		const s = segs[i];
@@ -225,7 +228,7 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	const starts = alongY ? sy : sx;
 	if (starts.length > MAX_CHAINS) return null;
 	const [A0, A1, C0, C1] = alongY ? [y0, y1, x0, x1] : [x0, x1, y0, y1];
-	const g: Ranges = new Float64Array(4 * m);
+	const g: Ranges = scratch.float64(4, 4 * m);
 	for (let p = 0; p < m; p++) {
 		g[4 * p] = Math.min(A0[p], A1[p]) - reach;
 		g[4 * p + 1] = Math.max(A0[p], A1[p]) + reach;
@@ -236,7 +239,7 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	let work = 0;
 	const budget = WORK_PER_PIECE * m + 1024;
 
-	const order = new Int32Array(m);
+	const order = scratch.int32(1, m);
 	const count = starts.length;
 	const ch: Chains = {
 		from: new Int32Array(count),
@@ -281,8 +284,8 @@ export function monotoneChainPairs(segs: readonly Segment[], reach: number, skip
 	// along each chain in order of a: the largest hi so far and the smallest lo from here on (pieces that
 	// meet at a vertex within the closure tolerance may step back a little, so the ranges themselves are
 	// not quite in order, these are)
-	const upHi = new Float64Array(m);
-	const downLo = new Float64Array(m);
+	const upHi = scratch.float64(5, m);
+	const downLo = scratch.float64(6, m);
 	for (let c = 0; c < count; c++) {
 		const from = ch.from[c], to = ch.to[c];
 		let run = -Infinity;

@@ -3,6 +3,7 @@ import { touchReach } from './curve-curve';
 import type { ChainHit } from './intersect';
 import { loopHits, outlineSelfIntersections, pairHits } from './self-intersect';
 import { indicesByKey } from './self-intersect-chains';
+import { ScratchArrays } from './scratch';
 import { CLOSURE_TOLERANCE_MM, INTERSECTION_TOLERANCE_MM } from './tolerance';
 
 /**
@@ -48,7 +49,7 @@ export function outlineSelfIntersectionsBetweenParts(
 	if (partOf.length !== n) return full();
 	const reach = touchReach(tolerance);
 	// part numbers made compact: 0 … parts − 1, and `parts` for the segments of no part
-	const group = scratch.ints(2, n);
+	const group = scratch.int32(2, n);
 	const seen = new Map<number, number>();
 	let lastPart = -1, lastGroup = -1;
 	for (let i = 0; i < n; i++) {
@@ -70,9 +71,9 @@ export function outlineSelfIntersectionsBetweenParts(
 	}
 	const parts = seen.size;
 	for (let i = 0; i < n; i++) if (group[i] < 0) group[i] = parts;
-	const box = scratch.floats(0, 4 * n);
+	const box = scratch.float64(0, 4 * n);
 	// a straight segment's ends (x0, y0, x1, y1), NaN for a curve: each segment object is read once
-	const line = scratch.floats(1, 4 * n);
+	const line = scratch.float64(1, 4 * n);
 	let allMinX = Infinity, allMinY = Infinity, allMaxX = -Infinity, allMaxY = -Infinity;
 	for (let i = 0; i < n; i++) {
 		const s = segs[i];
@@ -119,7 +120,7 @@ export function outlineSelfIntersectionsBetweenParts(
 	};
 	// runs of up to BLOCK consecutive segments of one group mark and test the grid with their joint box
 	// (a straight segment across several cells, on its own, with its band)
-	const blocks = scratch.ints(0, n + 1);
+	const blocks = scratch.int32(0, n + 1);
 	let blockCount = 0;
 	for (let i = 0; i < n; i++) {
 		const from = blockCount > 0 ? blocks[blockCount - 1] : -1;
@@ -132,7 +133,7 @@ export function outlineSelfIntersectionsBetweenParts(
 		const g = group[blocks[b]];
 		blockCovers(grid, blocks[b], blocks[b + 1], g === parts ? LOOSE_BIT : 1 << g, true, blockBox);
 	}
-	const cand = scratch.ints(1, n);
+	const cand = scratch.int32(1, n);
 	let count = 0;
 	for (let b = 0; b < blockCount; b++) {
 		const from = blocks[b], to = blocks[b + 1];
@@ -178,23 +179,8 @@ interface Grid {
 	readonly line: Float64Array;
 }
 
-/**
- * Working arrays kept between calls (the search runs on every step of a drag; allocating and zeroing
- * them each time cost about as much as the search). Only the first n entries are used, each written
- * before it is read; nothing in them outlives a call.
- */
-const scratch = {
-	f: [new Float64Array(0), new Float64Array(0)],
-	i: [new Int32Array(0), new Int32Array(0), new Int32Array(0)],
-	floats(k: number, size: number): Float64Array {
-		if (this.f[k].length < size) this.f[k] = new Float64Array(Math.ceil(size * 1.25));
-		return this.f[k];
-	},
-	ints(k: number, size: number): Int32Array {
-		if (this.i[k].length < size) this.i[k] = new Int32Array(Math.ceil(size * 1.25));
-		return this.i[k];
-	}
-};
+/** This search's working arrays (see scratch.ts). */
+const scratch = new ScratchArrays();
 
 /** A straight segment across several cells (covered by its band of cells, see cellsCovered). */
 function longAt(grid: Grid, i: number): boolean {

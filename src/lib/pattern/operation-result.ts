@@ -59,10 +59,11 @@ export function refuse(code: OperationErrorCode, message: string): OperationResu
  */
 export function resultProblems(piece: Piece, options: OutlineCheckOptions = {}): string[] {
 	const apexPoints = piece.apexes.map((a) => a.point);
-	const outline = outlineProblems(piece.outline, {}, options).filter(
-		(p) => !(p.code === 'self-intersection' && p.point && apexPoints.some((a) => vecDistance(a, p.point!) < 1e-3))
-	);
-	return [...outline.map((p) => p.message), ...pieceStructureProblems(piece)];
+	const found = outlineProblems(piece.outline, {}, options);
+	const outline = found.filter((p) => !(p.code === 'self-intersection' && p.point && apexPoints.some((a) => vecDistance(a, p.point!) < 1e-3)));
+	// every gap was measured just now (the same 1e-3 mm): the structure check need not walk the outline again
+	const closed = found.every((p) => p.code === 'self-intersection');
+	return [...outline.map((p) => p.message), ...pieceStructureProblems(piece, { outlineClosed: closed })];
 }
 
 /**

@@ -130,8 +130,11 @@ export function pleatGeometry(piece: Piece, pleat: Pleat): WedgeGeometry | null 
 	return wedgeGeometry(apex.point, pleat.leg1End, pleat.leg2End);
 }
 
-/** Structural problems of a piece (beyond the schema): missing apexes, wedges not in the outline. */
-export function pieceStructureProblems(piece: Piece): string[] {
+/**
+ * Structural problems of a piece (beyond the schema): an outline that does not close, missing apexes,
+ * wedges not in the outline. `outlineClosed`: the caller has just found every gap within 1e-3 mm.
+ */
+export function pieceStructureProblems(piece: Piece, known: { outlineClosed?: boolean } = {}): string[] {
 	const problems: string[] = [];
 	const ids = new Set<string>();
 	const dup = (kind: string, id: string) => {
@@ -141,7 +144,7 @@ export function pieceStructureProblems(piece: Piece): string[] {
 	};
 	const segs = piece.outline.segments;
 	const n = segs.length;
-	for (let i = 0; i < n; i++) {
+	for (let i = 0; i < (known.outlineClosed ? 0 : n); i++) {
 		const s = segs[i];
 		const end = s.kind === 'line' ? s.p1 : s.p3;
 		const next = segs[i + 1 === n ? 0 : i + 1].p0;

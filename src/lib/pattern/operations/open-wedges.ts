@@ -204,17 +204,21 @@ function openForward(
 		}
 	}
 
-	// cut the chain L2 → … → L1 at the targets
+	// cut the chain L2 → … → L1 at the targets; the stretches between them are taken whole
+	const stretch = (from: number, to: number): Segment[] => {
+		if (to <= from) return [];
+		const a = orig(from);
+		return a + (to - from) <= n ? segs.slice(a, a + (to - from)) : segs.slice(a).concat(segs.slice(0, a + (to - from) - n));
+	};
 	const chains: Segment[][] = [];
 	let cur: Segment[] = [];
 	let q = 0;
-	for (let ri = 0; ri <= n - 3; ri++) {
+	let placed = 0;
+	while (q < targets.length && targets[q].ri <= n - 3) {
+		const ri = targets[q].ri;
 		const s = segs[orig(ri)];
-		if (q === targets.length || targets[q].ri !== ri) {
-			// most segments carry no opening
-			cur.push(s);
-			continue;
-		}
+		cur = cur.concat(stretch(placed, ri));
+		placed = ri + 1;
 		while (q < targets.length && targets[q].ri === ri && targets[q].t === 0) {
 			chains.push(cur);
 			cur = [];
@@ -233,7 +237,7 @@ function openForward(
 			cur.push(pieces[pieces.length - 1]);
 		} else cur.push(s);
 	}
-	chains.push(cur);
+	chains.push(cur.concat(stretch(placed, n - 2)));
 	const m = targets.length;
 	// rotation of chain c: sign · (sum of the openings between it and the fixed end)
 	const phis = targets.map((tg) => tg.request.angleRad);
@@ -242,15 +246,13 @@ function openForward(
 	// each chain turns as one path (a point shared by two segments is turned once; the numbers are the same)
 	const rotated = chains.map((ch, c) => (rot[c] === 0 ? ch : pathRotateAbout({ segments: ch }, P, rot[c]).segments));
 
-	const out: Segment[] = [];
+	let out: Segment[] = [];
 	// the chain each segment of out is a turned piece of, or −1 (new)
 	const partOf: number[] = [];
 	const openings: OpenedWedge[] = [];
 	for (let c = 0; c <= m; c++) {
-		for (const s of rotated[c]) {
-			out.push(s);
-			partOf.push(c);
-		}
+		out = out.concat(rotated[c]);
+		for (let j = rotated[c].length; j > 0; j--) partOf.push(c);
 		if (c === m) break;
 		const tg = targets[c];
 		const S = chains[c + 1][0].p0;
