@@ -22,6 +22,7 @@ import {
 	type PDFOperator,
 	type PDFPage
 } from 'pdf-lib';
+import { COLORS } from '../palette';
 import { STROKE_STYLE, type DrawItem } from './drawing';
 import { PRINT_CAUTION, PT_PER_MM } from './paper';
 import type { PrintSheet } from './print-sheet';
@@ -37,7 +38,11 @@ import { pdfTextFonts, textDraw, type PdfTextFonts } from './pdf-text';
  * script part of it only where the text needs it.
  */
 
-const INK = rgb(0x1f / 255, 0x2a / 255, 0x37 / 255);
+/** Lines and labels in the palette's ink. */
+const INK = (() => {
+	const n = parseInt(COLORS.ink.DEFAULT.slice(1), 16);
+	return rgb(((n >> 16) & 255) / 255, ((n >> 8) & 255) / 255, (n & 255) / 255);
+})();
 const k = PT_PER_MM;
 
 type Fonts = PdfTextFonts;

@@ -1,8 +1,12 @@
 import type { BoundingBox, Outline, Path, Segment, Vec } from '../kernel';
 import { boundingBoxUnion, pathBoundingBox, vecAdd, vecNormalize, vecPerp, vecScale, vecSub } from '../kernel';
+import { COLORS } from '../../palette';
 import type { Piece } from '../piece-schema';
 import { labelPlacement, type LabelPlacement } from './label-place';
 import { outlinePleatsAcross, pleatMarks } from './pleat-marks';
+
+/** Every line and label is drawn in the palette's ink. */
+const INK = COLORS.ink.DEFAULT;
 
 /** What the labels of an exported piece say besides the geometry. */
 export interface SvgExportMeta {
@@ -83,7 +87,7 @@ function labelGroup(lines: readonly string[], l: LabelPlacement): string {
 	const first = l.fontSizeMm * 0.85;
 	const texts = (x: number, y: number) =>
 		lines.map((t, i) => `<text x="${n(x)}" y="${n(y + first + i * l.lineHeightMm)}">${esc(t)}</text>`).join('');
-	const font = `font-family="Source Sans 3, sans-serif" font-size="${n(l.fontSizeMm)}" fill="#1F2A37"`;
+	const font = `font-family="Source Sans 3, sans-serif" font-size="${n(l.fontSizeMm)}" fill="${INK}"`;
 	if (l.turned) return `<g id="labels" ${font} transform="translate(${n(l.at.x)} ${n(l.at.y)}) rotate(-90)">${texts(0, 0)}</g>`;
 	return `<g id="labels" ${font}>${texts(l.at.x, l.at.y)}</g>`;
 }
@@ -97,9 +101,9 @@ function pieceLayers(piece: Piece, layout: PieceLayout): string {
 	const layers: string[] = [];
 	const stitching = outlinePleatsAcross(piece);
 	const cut = piece.seamAllowance?.cutLine ?? stitching;
-	layers.push(`<g id="cut-line" fill="none" stroke="#1F2A37" stroke-width="0.5"><path d="${svgPathData(cut, true)}"/></g>`);
+	layers.push(`<g id="cut-line" fill="none" stroke="${INK}" stroke-width="0.5"><path d="${svgPathData(cut, true)}"/></g>`);
 	layers.push(
-		`<g id="stitching-line" fill="none" stroke="#1F2A37" stroke-width="0.3" stroke-dasharray="2 1.5"><path d="${svgPathData(stitching, true)}"/></g>`
+		`<g id="stitching-line" fill="none" stroke="${INK}" stroke-width="0.3" stroke-dasharray="2 1.5"><path d="${svgPathData(stitching, true)}"/></g>`
 	);
 	const dartLines: string[] = [];
 	for (const d of piece.darts) {
@@ -114,21 +118,21 @@ function pieceLayers(piece: Piece, layout: PieceLayout): string {
 			`<g class="pleat" data-pleat="${esc(p.id)}">${line(m.fold[0], m.fold[1], ' class="fold"')}${line(m.placement[0], m.placement[1], ' class="placement" stroke-dasharray="3 1.5"')}${line(m.arrow.from, m.arrow.to, ' class="fold-arrow"')}${arrowHead(m.arrow.to, m.arrow.from, 2.5)}</g>`
 		);
 	}
-	layers.push(`<g id="darts-pleats" fill="none" stroke="#1F2A37" stroke-width="0.3">${dartLines.join('')}</g>`);
+	layers.push(`<g id="darts-pleats" fill="none" stroke="${INK}" stroke-width="0.3">${dartLines.join('')}</g>`);
 	const notches = piece.notches.map((k) => {
 		const marks = [];
 		for (let i = 0; i < k.count; i++) marks.push(`<circle cx="${n(k.at.x + (i - (k.count - 1) / 2) * 3)}" cy="${n(k.at.y)}" r="1"/>`);
 		return marks.join('');
 	});
-	layers.push(`<g id="notches" fill="#1F2A37">${notches.join('')}</g>`);
+	layers.push(`<g id="notches" fill="${INK}">${notches.join('')}</g>`);
 	if (piece.grainline) {
 		const g = piece.grainline;
 		const heads = arrowHead(g.to, g.from) + (g.arrowheads === 'both' ? arrowHead(g.from, g.to) : '');
-		layers.push(`<g id="grainline" fill="none" stroke="#1F2A37" stroke-width="0.4">${line(g.from, g.to)}${heads}</g>`);
+		layers.push(`<g id="grainline" fill="none" stroke="${INK}" stroke-width="0.4">${line(g.from, g.to)}${heads}</g>`);
 	}
 	if (piece.foldLine) {
 		layers.push(
-			`<g id="fold-line" fill="none" stroke="#1F2A37" stroke-width="0.4" stroke-dasharray="6 2 1 2">${line(piece.foldLine.from, piece.foldLine.to)}</g>`
+			`<g id="fold-line" fill="none" stroke="${INK}" stroke-width="0.4" stroke-dasharray="6 2 1 2">${line(piece.foldLine.from, piece.foldLine.to)}</g>`
 		);
 	}
 	layers.push(labelGroup(layout.lines, layout.label));
@@ -146,7 +150,7 @@ function svgDocument(widthMm: number, heightMm: number, viewX: number, viewY: nu
 }
 
 function testSquare(at: Vec): string {
-	return `<g id="test-square" fill="none" stroke="#1F2A37" stroke-width="0.3"><rect x="${n(at.x)}" y="${n(at.y)}" width="50" height="50"/><text x="${n(at.x + 2)}" y="${n(at.y + 8)}" font-size="4" stroke="none" fill="#1F2A37">50 mm test square</text></g>`;
+	return `<g id="test-square" fill="none" stroke="${INK}" stroke-width="0.3"><rect x="${n(at.x)}" y="${n(at.y)}" width="50" height="50"/><text x="${n(at.x + 2)}" y="${n(at.y + 8)}" font-size="4" stroke="none" fill="${INK}">50 mm test square</text></g>`;
 }
 
 /** One piece at true scale: width/height in mm and a viewBox in mm, one group per layer. */
