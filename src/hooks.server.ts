@@ -1,4 +1,4 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
 import { cookieSecure, lucia, sessionCookieClear, sessionCookieSet } from '$lib/server/auth/lucia';
 import { decide, ruleLookup, signInPath } from '$lib/server/authz';
 import { DATABASE_RETRY_AFTER_S, DATABASE_UNAVAILABLE_MESSAGE, errorIsDatabaseUnavailable } from '$lib/server/db/unavailable';
@@ -6,6 +6,12 @@ import { databaseUnavailableJson, databaseUnavailablePage } from '$lib/server/db
 import { defaultErrorCode, defaultErrorMessage, jsonError } from '$lib/server/http-errors';
 import { cspNonce, scriptsWithNonce, securityHeadersSet } from '$lib/server/security-headers';
 import { storageOrigin } from '$lib/server/storage';
+import { sizeRunWorkerStart } from '$lib/server/size-runs/queue';
+
+/** The size-run worker (pg-boss) runs in every app process: `npm start` and the tests' app start it here. */
+export const init: ServerInit = async () => {
+	sizeRunWorkerStart();
+};
 
 const isApi = (pathname: string) => pathname === '/api' || pathname.startsWith('/api/');
 

@@ -102,6 +102,15 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	},
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state': {
 		POST: { path: '/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]/state', json: {}, ok: 400 }
+	},
+	// size runs: pattern cutters and owners start and cancel them; whoever sees drafts reads them
+	'/api/studios/[studioId]/styles/[styleId]/size-runs': {
+		GET: { path: '/api/studios/[studioId]/styles/[styleId]/size-runs', ok: 404 },
+		POST: { path: '/api/studios/[studioId]/styles/[styleId]/size-runs', json: {}, ok: 400 }
+	},
+	'/api/studios/[studioId]/size-runs/[sizeRunId]': {
+		GET: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 },
+		DELETE: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 }
 	}
 };
 

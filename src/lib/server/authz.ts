@@ -40,6 +40,8 @@ export const FITTERS = ['owner', 'sampleroom'] as const satisfies readonly Role[
 export const NOTE_WRITERS = ['owner', 'patterncutter', 'designer', 'sampleroom'] as const satisfies readonly Role[];
 /** Mark a fit note done, resolved by a version: only whoever makes the versions. */
 export const NOTE_RESOLVERS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
+/** Start and cancel a size run (a style's recipe replayed on other measurement sets): whoever makes the versions. */
+export const SIZE_RUNNERS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
 /** Write in a version's comment thread. */
 export const COMMENTERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
 
@@ -100,6 +102,9 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/api/studios/[studioId]/styles/[styleId]/cutting-list': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/styles/[styleId]/cutting-list.csv': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/styles/[styleId]/imports': { POST: EDITORS },
+	// size runs: started and cancelled by pattern cutters and owners, read by whoever sees drafts
+	'/api/studios/[studioId]/styles/[styleId]/size-runs': { GET: DRAFT_READERS, POST: SIZE_RUNNERS },
+	'/api/studios/[studioId]/size-runs/[sizeRunId]': { GET: DRAFT_READERS, DELETE: SIZE_RUNNERS },
 	'/api/studios/[studioId]/pieces/[pieceId]': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },

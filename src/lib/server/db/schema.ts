@@ -219,3 +219,23 @@ export interface BillingInvoicesTable {
 /** Fittings, fit notes, reviews, comments and e-mail settings (migration 2026-12-03-0060), in their own file. */
 export type { FitNoteCategory, FitNoteStatus, NotificationKind, ReviewKind } from './schema-fittings';
 export interface Database extends FittingsDatabase {}
+
+/** Size runs (migration 2026-12-03-0070): what a run was asked for, how far it got, what each size gave. */
+export interface SizeRunsTable {
+	id: Generated<string>;
+	studio_id: string;
+	style_id: string;
+	created_by: string | null;
+	status: ColumnType<'queued' | 'running' | 'done' | 'failed' | 'cancelled', 'queued' | 'running' | 'done' | 'failed' | 'cancelled' | undefined>;
+	sizes: Json;
+	results: ColumnType<unknown, string | undefined, string>;
+	steps_done: ColumnType<number, number | undefined, number>;
+	steps_total: ColumnType<number, number | undefined, number>;
+	error: string | null;
+	job_id: string | null;
+	created_at: CreatedAt;
+	updated_at: ColumnType<Date, Date | string | undefined, Date | string>;
+}
+export interface Database {
+	size_runs: SizeRunsTable;
+}
