@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startApp, type RunningApp } from './app-server';
 import { billingOf, checkoutPay, ownedStudio, upgrade } from './billing-helpers';
-import { testDb, testDbClose } from './helpers';
+import { sessionClient, testDb, testDbClose, userMake } from './helpers';
 
 let app: RunningApp;
 
@@ -78,6 +78,35 @@ describe('plan limits', () => {
 		expect(err.code).toBe('plan_limit');
 		expect(err.message).toContain('The Sketch plan allows 3 seats (members and pending invitations), and 3 are in use.');
 		expect(err.message).toContain("The studio's owner can change the plan on the Billing page.");
+	});
+
+	it('lets exactly one of several invitations sent at once take the last seat; the others are refused with 402', async () => {
+		const s = await ownedStudio(app, ['patterncutter']);
+		const stamp = Date.now();
+		const answers = await Promise.all(
+			[1, 2, 3, 4, 5].map((i) => s.client.api('POST', `/api/studios/${s.studioId}/invitations`, { email: `race-${i}-${stamp}@example.test`, role: 'designer' }))
+		);
+		const statuses = answers.map((r) => r.status).sort();
+		expect(statuses).toEqual([201, 402, 402, 402, 402]);
+		expect((await billingOf(s)).seats.used).toBe(3);
+	});
+
+	it('lets exactly one of several styles made at once take the last style of the Sketch plan', async () => {
+		const s = await ownedStudio(app);
+		for (let i = 1; i <= 4; i++) expect((await s.client.api('POST', `/api/studios/${s.studioId}/styles`, { name: `Style ${i}` })).status).toBe(201);
+		const answers = await Promise.all([5, 6, 7, 8].map((i) => s.client.api('POST', `/api/studios/${s.studioId}/styles`, { name: `Style ${i}` })));
+		expect(answers.map((r) => r.status).sort()).toEqual([201, 402, 402, 402]);
+		expect((await (await s.client.api('GET', `/api/studios/${s.studioId}/styles`)).json()).styles).toHaveLength(5);
+	});
+
+	it('sends an invitation again to the same address at the seat limit: it replaces the open one and takes no other seat', async () => {
+		const s = await ownedStudio(app, ['patterncutter']);
+		const email = `again-${Date.now()}@example.test`;
+		expect((await s.client.api('POST', `/api/studios/${s.studioId}/invitations`, { email, role: 'designer' })).status).toBe(201);
+		const again = await s.client.api('POST', `/api/studios/${s.studioId}/invitations`, { email, role: 'sampleroom' });
+		expect(again.status).toBe(201);
+		const open = (await (await s.client.api('GET', `/api/studios/${s.studioId}/invitations`)).json()).invitations;
+		expect(open.map((i: { email: string; role: string }) => [i.email, i.role])).toEqual([[email, 'sampleroom']]);
 	});
 
 	it('refuses the invitation past the seats paid for on Studio, and lets it through once seats are added', async () => {
@@ -175,6 +204,13 @@ describe('studios per owner', () => {
 		expect(await form.text()).toContain('one studio per owner');
 		await upgrade(app, s, 1);
 		expect((await s.client.api('POST', '/api/studios', { name: 'Second room' })).status).toBe(201);
+	});
+
+	it('gives a person without a studio exactly one of several studios asked for at once', async () => {
+		const u = await userMake('owner');
+		const client = await sessionClient(app.baseUrl, u.id);
+		const answers = await Promise.all(['North room', 'South room', 'East room'].map((name) => client.api('POST', '/api/studios', { name })));
+		expect(answers.map((r) => r.status).sort()).toEqual([201, 402, 402]);
 	});
 });
 

@@ -1,3 +1,4 @@
+import { planLimitReserve } from '../billing/plan';
 import type { Db } from '../db';
 import type { Role } from '../db/schema';
 import { invitationMail, mailSend, passwordResetMail } from '../mail/send';
@@ -5,7 +6,8 @@ import {
 	invitationsConsume,
 	invitationsCreate,
 	invitationsDelete,
-	invitationsOpenByTokenHash
+	invitationsOpenByTokenHash,
+	invitationsOpenForEmail
 } from '../repositories/invitations';
 import { membershipsAddIfAbsent, membershipsCreate, membershipsIsMemberByEmail } from '../repositories/memberships';
 import {
@@ -92,13 +94,20 @@ export async function invitationSend(
 	const studio = await studiosById(db, input.studioId);
 	if (!studio) return no('no_studio', 'No such studio.');
 	const token = linkTokenCreate();
-	const invitation = await invitationsCreate(db, {
-		studioId: input.studioId,
-		email,
-		role: input.role,
-		tokenHash: sha256Hex(token),
-		invitedBy: input.inviter.id,
-		expiresAt: new Date(Date.now() + INVITATION_TTL_MS)
+	// A pending invitation takes a seat: the count and the insert are one transaction under the studio's
+	// lock, so two invitations racing for the last seat cannot both pass (402 for the second). Inviting
+	// the same address again replaces its open invitation and takes no further seat.
+	const invitation = await db.transaction().execute(async (tx) => {
+		const again = await invitationsOpenForEmail(tx, input.studioId, email);
+		await planLimitReserve(tx, input.studioId, 'seats', again ? 0 : 1);
+		return invitationsCreate(tx, {
+			studioId: input.studioId,
+			email,
+			role: input.role,
+			tokenHash: sha256Hex(token),
+			invitedBy: input.inviter.id,
+			expiresAt: new Date(Date.now() + INVITATION_TTL_MS)
+		});
 	});
 	try {
 		await mailSend(

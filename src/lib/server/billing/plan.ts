@@ -1,5 +1,7 @@
 import { limitCheck, limitsExceeded, type LimitName, type PlanState } from '../../billing/plans';
 import type { DbOrTx } from '../db';
+import { studiosLockForLimits } from '../repositories/studios';
+import { usersLockForStudios } from '../repositories/users';
 import { ApiError } from '../http-errors';
 import { billingOfStudio, billingSeatUsage, billingSketchStudiosOwned, billingStylesCount, type StudioBillingRow } from '../repositories/billing';
 
@@ -46,10 +48,23 @@ export async function planLimitEnforce(db: DbOrTx, studioId: string, limit: Extr
 }
 
 /**
+ * `planLimitEnforce` for the transaction that then adds the seat or the style: it first locks the
+ * studio's row (held to the end of the transaction), so of two requests racing for the last seat the
+ * second waits, counts what the first added, and is refused. Call it on a transaction, never the pool.
+ */
+export async function planLimitReserve(tx: DbOrTx, studioId: string, limit: Extract<LimitName, 'seats' | 'styles'>, adding = 1): Promise<void> {
+	await studiosLockForLimits(tx, studioId);
+	await planLimitEnforce(tx, studioId, limit, adding);
+}
+
+/**
  * A new studio starts on Sketch, and the Sketch plan includes one studio per owner: refused (402) when
- * the person already owns a studio on Sketch. Studios on the Studio plan do not count.
+ * the person already owns a studio on Sketch. Studios on the Studio plan do not count. Call it on the
+ * transaction that creates the studio.
  */
 export async function planStudioCreateEnforce(db: DbOrTx, userId: string): Promise<void> {
+	// the owner's row is locked to the end of the transaction: two new studios of one owner take turns
+	await usersLockForStudios(db, userId);
 	const owned = await billingSketchStudiosOwned(db, userId, [...LIVE_STATUSES]);
 	const check = limitCheck({ plan: 'sketch' }, 'studios_owned', owned.length);
 	if (check.ok) return;

@@ -8,7 +8,7 @@ import { ApiError } from '../http-errors';
 import { draftedStyleDiscard } from '../repositories/measurement-sets';
 import { seamPairsCreate } from '../repositories/seam-pairs';
 import { stylesCreate, type StyleRow } from '../repositories/styles';
-import { planLimitEnforce } from '../billing/plan';
+import { planLimitEnforce, planLimitReserve } from '../billing/plan';
 import { pieceCreateWithFirstVersion } from '../versions/piece-create';
 import { measurementChartsEnsure } from './charts';
 import { draftAttempt, draftCulprits, draftCulpritText, draftPieces } from './draft-culprit';
@@ -86,16 +86,20 @@ export async function blockDraftIntoStyle(db: Db, studioId: string, authorId: st
 	// the seam pairs between neighbouring panels (the same pure draft, so the same panels)
 	const seams = options.underStructure === 'none' ? [] : draftedSeamPairs(underStructureDraft(mm, ease, { panels: options.underStructure }));
 	const params = { measurementSetId: set.id, ease, options };
-	const style = await stylesCreate(db, {
-		studioId,
-		name: req.name,
-		code: req.code,
-		season: req.season,
-		notes: `Block drafted from "${set.name}" (${set.source || (set.clientRef ? `client ${set.clientRef}` : 'own measurements')}).${
-			draftCautions(ease).length > 0 ? ' Negative ease: for a boned, close-fitting garment; fit a toile first.' : ''
-		}`,
-		measurementSetId: set.id,
-		createdBy: authorId
+	// refused early above (before drafting), and again under the studio's lock where the style is inserted
+	const style = await db.transaction().execute(async (tx) => {
+		await planLimitReserve(tx, studioId, 'styles');
+		return stylesCreate(tx, {
+			studioId,
+			name: req.name,
+			code: req.code,
+			season: req.season,
+			notes: `Block drafted from "${set.name}" (${set.source || (set.clientRef ? `client ${set.clientRef}` : 'own measurements')}).${
+				draftCautions(ease).length > 0 ? ' Negative ease: for a boned, close-fitting garment; fit a toile first.' : ''
+			}`,
+			measurementSetId: set.id,
+			createdBy: authorId
+		});
 	});
 	const parts = ['front', 'back', ...drafted.pieces.slice(2).map((_, i) => `panel-${i + 1}`)];
 	const wanted: { name: string; geometry: Piece; part: string }[] = drafted.pieces.map((p, i) => ({ ...p, part: parts[i] }));

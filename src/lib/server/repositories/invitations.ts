@@ -81,6 +81,19 @@ export async function invitationsOpenForStudio(db: DbOrTx, studioId: string): Pr
 		.execute();
 }
 
+/** Is there an invitation of this address to this studio that can still be used? */
+export async function invitationsOpenForEmail(db: DbOrTx, studioId: string, email: string): Promise<boolean> {
+	const r = await db
+		.selectFrom('invitations')
+		.select('id')
+		.where('studio_id', '=', studioId)
+		.where('email', '=', email.trim().toLowerCase())
+		.where('used_at', 'is', null)
+		.where('expires_at', '>', new Date())
+		.executeTakeFirst();
+	return r !== undefined;
+}
+
 export async function invitationsDelete(db: DbOrTx, id: string): Promise<void> {
 	await db.deleteFrom('invitations').where('id', '=', id).execute();
 }

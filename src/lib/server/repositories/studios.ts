@@ -21,3 +21,11 @@ export async function studiosRename(db: DbOrTx, id: string, name: string): Promi
 		.returning(['id', 'name'])
 		.executeTakeFirst();
 }
+
+/**
+ * Locks the studio's row for the rest of the transaction. Everything that adds a seat or a style takes
+ * it before counting, so two such requests of one studio take turns and the second counts the first.
+ */
+export async function studiosLockForLimits(db: DbOrTx, id: string): Promise<boolean> {
+	return (await db.selectFrom('studios').select('id').where('id', '=', id).forUpdate().executeTakeFirst()) !== undefined;
+}

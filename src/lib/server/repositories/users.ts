@@ -45,3 +45,8 @@ export async function usersPasswordSet(db: DbOrTx, id: string, passwordHash: str
 export function isUniqueViolation(e: unknown): boolean {
 	return typeof e === 'object' && e !== null && (e as { code?: unknown }).code === '23505';
 }
+
+/** Locks the person's row for the rest of the transaction (the one-studio-per-Sketch-owner check takes it). */
+export async function usersLockForStudios(db: DbOrTx, id: string): Promise<void> {
+	await db.selectFrom('users').select('id').where('id', '=', id).forUpdate().executeTakeFirst();
+}

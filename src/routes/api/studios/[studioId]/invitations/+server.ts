@@ -2,7 +2,6 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { apiRoute, readJson } from '$lib/server/api';
 import { invitationSend } from '$lib/server/auth/accounts';
-import { planLimitEnforce } from '$lib/server/billing/plan';
 import { OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
@@ -29,8 +28,8 @@ const createSchema = z.object({ email: emailSchema, role: roleSchema });
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { studioId, user } = await requireRole(event, OWNER);
 	const body = await readJson(event.request, createSchema);
-	// a pending invitation takes a seat: refused (402) past the plan's seats
-	await planLimitEnforce(db(), studioId, 'seats');
+	// a pending invitation takes a seat: invitationSend refuses it (402) past the plan's seats, counting
+	// and inserting under the studio's lock
 	let r;
 	try {
 		r = await invitationSend(db(), {
@@ -41,6 +40,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 			origin: event.url.origin
 		});
 	} catch (e) {
+		if (e instanceof ApiError) throw e;
 		console.error('[invitations] could not send the invitation mail:', e);
 		throw new ApiError(503, 'mail_unavailable', 'We could not send the invitation just now. Try again in a few minutes.');
 	}

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { apiRoute, readJson } from '$lib/server/api';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
-import { planLimitEnforce } from '$lib/server/billing/plan';
+import { planLimitReserve } from '$lib/server/billing/plan';
 import { db } from '$lib/server/db';
 import { stylesCreate, stylesOfStudio } from '$lib/server/repositories/styles';
 import { EDITORS } from '$lib/server/versions/access';
@@ -16,7 +16,12 @@ export const GET: RequestHandler = apiRoute(async (event) => {
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { studioId, user } = await requireRole(event, EDITORS);
 	const body = await readJson(event.request, styleCreateSchema);
-	await planLimitEnforce(db(), studioId, 'styles');
-	const style = await stylesCreate(db(), { ...body, studioId, createdBy: user.id });
+	// counted and inserted under the studio's lock: two requests cannot both take the last style
+	const style = await db()
+		.transaction()
+		.execute(async (tx) => {
+			await planLimitReserve(tx, studioId, 'styles');
+			return stylesCreate(tx, { ...body, studioId, createdBy: user.id });
+		});
 	return json({ style }, { status: 201 });
 });
