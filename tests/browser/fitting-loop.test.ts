@@ -67,12 +67,16 @@ describe('back from the fitting', () => {
 		await room.page.fill('#note-x', String(notchAt.x));
 		await room.page.fill('#note-y', String(notchAt.y));
 		await room.page.selectOption('#note-category', 'seam_placement');
+		// amounts in inches, chosen on the page: typed as a fraction, shown to the sixteenth
+		await room.page.selectOption('[data-testid="amount-unit"]', 'in');
+		await room.page.fill('#note-amount', '1/4');
 		await room.page.fill('#note-body', 'Mark the seam: add a notch here so the band meets the upper front at the same point.');
 		await room.page.selectOption('#note-for', { label: demo().users.find((u) => u.role === 'patterncutter')!.name });
 		await room.page.click('button:has-text("Pin the note")');
 		await room.page.waitForSelector('[data-testid="fit-note"], form [role="alert"]');
 		expect(await room.page.locator('form [role="alert"]').allTextContents()).toEqual([]);
 		await expect.poll(() => room.page.locator('[data-testid="fit-note"]').count()).toBe(1);
+		expect(await room.page.locator('[data-testid="fit-note-headline"]').textContent()).toBe('seam placement, move out / down 1/4 in');
 		await expect.poll(() => room.page.locator('[data-testid="pin-mark"]').count()).toBe(1);
 		await pageScreenshot(room.page, 'fitting-page');
 		await room.context.close();
@@ -81,6 +85,9 @@ describe('back from the fitting', () => {
 		const page = cutter.page;
 		await editorOpen(page, `${studio}/styles/${styleId}/edit`);
 		await expect.poll(() => page.locator('[data-testid="fit-pin"]').count(), { timeout: 15_000 }).toBe(1);
+		// the pin gives the amount in the editor's unit once one is chosen
+		await page.selectOption('label:has-text("Unit") select', 'in');
+		await expect.poll(() => page.locator('[data-testid="fit-pin"]').getAttribute('aria-label')).toContain('seam placement, move out / down 1/4 in');
 		await page.keyboard.press('n');
 		await clickOnPiece(page, pieceId, notchAt);
 		await page.keyboard.press('Enter');

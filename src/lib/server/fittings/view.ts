@@ -37,6 +37,7 @@ export function fitNoteJson(n: FitNoteRow) {
 		yMm: n.yMm,
 		category: n.category,
 		amountMm: n.amountMm,
+		unit: n.unit,
 		body: n.body,
 		status: n.status,
 		resolvedVersionId: n.resolvedVersionId,

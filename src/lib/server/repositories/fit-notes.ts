@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import type { DbOrTx } from '../db';
 import type { FitNoteCategory, FitNoteStatus } from '../db/schema';
 
@@ -13,6 +14,8 @@ export interface FitNoteRow {
 	yMm: number;
 	category: FitNoteCategory;
 	amountMm: number | null;
+	/** the unit the amount is read in: the fitted measurement set's, else the style's set's, else mm */
+	unit: 'mm' | 'cm' | 'in';
 	body: string;
 	status: FitNoteStatus;
 	resolvedVersionId: string | null;
@@ -30,6 +33,9 @@ function selectNotes(db: DbOrTx) {
 		.selectFrom('fit_notes')
 		.innerJoin('fittings', 'fittings.id', 'fit_notes.fitting_id')
 		.innerJoin('pieces', 'pieces.id', 'fit_notes.piece_id')
+		.innerJoin('styles', 'styles.id', 'pieces.style_id')
+		.leftJoin('measurement_sets as fitted', 'fitted.id', 'fittings.measurement_set_id')
+		.leftJoin('measurement_sets as drafted', 'drafted.id', 'styles.measurement_set_id')
 		.innerJoin('piece_versions as pinned', 'pinned.id', 'fit_notes.version_id')
 		.leftJoin('piece_versions as resolved', 'resolved.id', 'fit_notes.resolved_version_id')
 		.leftJoin('users as author', 'author.id', 'fit_notes.created_by')
@@ -46,6 +52,7 @@ function selectNotes(db: DbOrTx) {
 			'fit_notes.y_mm as yMm',
 			'fit_notes.category',
 			'fit_notes.amount_mm as amountMm',
+			(eb) => eb.fn.coalesce('fitted.unit', 'drafted.unit', sql<'mm'>`'mm'`).as('unit'),
 			'fit_notes.body',
 			'fit_notes.status',
 			'fit_notes.resolved_version_id as resolvedVersionId',

@@ -4,6 +4,7 @@ import { pieceSchema } from '$lib/pattern/piece-schema';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { fittingDetail } from '$lib/server/fittings/fittings';
+import { fitNotesUnit } from '$lib/server/fittings/unit';
 import { membershipsOfStudio } from '$lib/server/repositories/memberships';
 import { stylesInStudio } from '$lib/server/repositories/styles';
 import { versionsById } from '$lib/server/repositories/versions';
@@ -37,6 +38,8 @@ export const load: PageServerLoad = async (event) => {
 		fitting,
 		style: { id: style.id, name: style.name, code: style.code },
 		targets: targets.map((t) => ({ ...t, geometry: pieceSchema.parse(t.geometry) })),
-		assignees
+		assignees,
+		// amounts are shown and typed in this unit unless the person chose one (the fitted set's, else the style's)
+		unit: await fitNotesUnit(db(), studioId, [fitting.measurementSetId, style.measurementSetId])
 	};
 };
