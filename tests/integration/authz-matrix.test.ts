@@ -67,12 +67,14 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	},
 	// billing: owners only; the provider's webhook is open to anyone, and refuses a body without its signature
 	'/studios/[studioId]/billing': { GET: { path: '/studios/[studioId]/billing', ok: 200 } },
-	'/api/studios/[studioId]/billing': { GET: { path: '/api/studios/[studioId]/billing', ok: 200 } },
+	'/api/studios/[studioId]/billing': { GET: { path: '/api/studios/[studioId]/billing?invoices=no', ok: 200 } },
 	'/api/studios/[studioId]/billing/checkout': { POST: { path: '/api/studios/[studioId]/billing/checkout', json: {}, ok: 400 } },
 	'/api/studios/[studioId]/billing/portal': { POST: { path: '/api/studios/[studioId]/billing/portal', json: {}, ok: 400 } },
 	'/api/studios/[studioId]/billing/subscription': { PATCH: { path: '/api/studios/[studioId]/billing/subscription', json: {}, ok: 400 } },
 	'/api/billing/webhook': { POST: { path: '/api/billing/webhook', json: {}, ok: 400 } },
 	// fittings, fit notes, the review of a version, e-mail settings (ids that do not exist: 404; bodies refused: 400)
+	'/studios/[studioId]/fittings/[fittingId]': { GET: { path: '/studios/[studioId]/fittings/[fittingId]', ok: 404 } },
+	'/settings/notifications': { GET: { path: '/settings/notifications', ok: 200 }, POST: { path: '/settings/notifications', form: {}, ok: 400 } },
 	'/api/me/notifications': {
 		GET: { path: '/api/me/notifications', ok: 200 },
 		PATCH: { path: '/api/me/notifications', json: {}, ok: 400 }
