@@ -3,9 +3,11 @@ import { pieceSchema, type Piece } from '$lib/pattern/piece-schema';
 import type { Db } from '../db';
 import { fittingsOfStyle } from '../repositories/fittings';
 import { fitNotesInsert, fitNotesUpdate } from '../repositories/fit-notes';
+import { photosKeysOfFitting } from '../repositories/fitting-photos';
 import { piecesOfStyle } from '../repositories/pieces';
 import { versionsById, versionsOfPiece } from '../repositories/versions';
 import { fittingCreate, fittingDelete, photoUpload } from '../fittings/fittings';
+import { storageExists } from '../storage';
 import { toilePhotoJpeg, type ToileView } from './toile-photo';
 
 /** The demo style's fitting, of our own scenario: a fit model's form, a calico toile, photos we drew. */
@@ -30,13 +32,29 @@ function sidePoint(piece: Piece): { x: number; y: number } {
 }
 
 /**
- * Seeds one fitting of the demo style (idempotent: skipped when the style has it): the toile cut from
+ * Is the demo fitting there whole: every photo's display size and thumbnail in the object store? The
+ * database and the store are kept apart (the store's folder can be emptied while the database stays).
+ */
+async function demoFittingWhole(db: Db, fittingId: string): Promise<boolean> {
+	const keys = await photosKeysOfFitting(db, fittingId);
+	if (keys.length !== DEMO_FITTING.photos.length * 2) return false;
+	for (const key of keys) if (!(await storageExists(key))) return false;
+	return true;
+}
+
+/**
+ * Seeds one fitting of the demo style (idempotent: skipped when the style has it whole; made again when
+ * its photos are missing from the object store, so a store emptied under a kept database heals): the toile cut from
  * the signed-off midriff band and the upper front before its pleats, three photos of our own drawing,
  * and two fit notes: the band too tight at the side (in hand, for the pattern cutter), and the bust dart
  * standing away at the apex, done: resolved by the version that folded it into pleats.
  */
 export async function demoFittingSeed(db: Db, studioId: string, styleId: string, users: { sampleroom: string; patterncutter: string }): Promise<boolean> {
-	if ((await fittingsOfStyle(db, styleId)).some((f) => f.title === DEMO_FITTING.title)) return false;
+	const existing = (await fittingsOfStyle(db, styleId)).find((f) => f.title === DEMO_FITTING.title);
+	if (existing) {
+		if (await demoFittingWhole(db, existing.id)) return false;
+		await fittingDelete(db, studioId, existing.id);
+	}
 	const pieces = await piecesOfStyle(db, styleId);
 	const band = pieces.find((p) => p.name === 'Midriff band');
 	const upper = pieces.find((p) => p.name === 'Upper front');
