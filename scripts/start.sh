@@ -12,7 +12,10 @@ MAIL_HTTP_PORT="${MAIL_DEV_HTTP_PORT:-4174}"
 PAYMENTS_PORT="${PAYMENTS_FAKE_PORT:-4176}"
 USE_PAYMENTS_FAKE=1
 [ -n "${STRIPE_SECRET_KEY:-}" ] && USE_PAYMENTS_FAKE=0
+# The local object store (scripts/s3-dev.ts), unless the environment names a hosted one (S3_ENDPOINT).
 S3_PORT="${S3_DEV_PORT:-4175}"
+USE_S3_FAKE=1
+[ -n "${S3_ENDPOINT:-}" ] && USE_S3_FAKE=0
 # Which of the project's clusters to use: dev (the start script's own test uses scratch).
 CLUSTER="${DARTELIER_START_CLUSTER:-dev}"
 # The build command (the start script's own test puts a stand-in here).
@@ -30,15 +33,18 @@ cleanup() {
 trap cleanup EXIT INT TERM
 
 # The local object store for photos (before the seed, which stores the demo fitting's photos).
-export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_BUCKET="${S3_BUCKET:-dartelier-photos}"
-S3_DEV_PORT="$S3_PORT" S3_DEV_DIR=".run/s3/$CLUSTER" node --import tsx scripts/s3-dev.ts >"$RUN_DIR/s3-dev.log" 2>&1 &
-S3_PID=$!
-for _ in $(seq 1 300); do
-	grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" 2>/dev/null && break
-	kill -0 "$S3_PID" 2>/dev/null || { tail -n 20 "$RUN_DIR/s3-dev.log" >&2; die "the object store stopped at once; see .run/s3-dev.log"; }
-	sleep 0.1
-done
-grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" || die "the object store did not start; see .run/s3-dev.log"
+export S3_BUCKET="${S3_BUCKET:-dartelier-photos}"
+if [ "$USE_S3_FAKE" = 1 ]; then
+	export S3_ENDPOINT="http://127.0.0.1:$S3_PORT"
+	S3_DEV_PORT="$S3_PORT" S3_DEV_DIR=".run/s3/$CLUSTER" node --import tsx scripts/s3-dev.ts >"$RUN_DIR/s3-dev.log" 2>&1 &
+	S3_PID=$!
+	for _ in $(seq 1 300); do
+		grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" 2>/dev/null && break
+		kill -0 "$S3_PID" 2>/dev/null || { tail -n 20 "$RUN_DIR/s3-dev.log" >&2; die "the object store stopped at once; see .run/s3-dev.log"; }
+		sleep 0.1
+	done
+	grep -q 's3-dev ready' "$RUN_DIR/s3-dev.log" || die "the object store did not start; see .run/s3-dev.log"
+fi
 quietly "$RUN_DIR/migrate.log" "migrating the database" npx tsx scripts/migrate.ts
 say "database migrated (log: .run/migrate.log)"
 quietly "$RUN_DIR/seed.log" "seeding the demo studio" npx tsx scripts/seed.ts
@@ -101,7 +107,7 @@ $DEMO_USERS
 
   Also running:
 $(printf '    %-22s%s\n' "Dev inbox" "http://127.0.0.1:$MAIL_HTTP_PORT   (invitation and password e-mails)")
-$(printf '    %-22s%s\n' "Object store (photos)" "http://127.0.0.1:$S3_PORT, bucket $S3_BUCKET, data in .run/s3/$CLUSTER")
+$(if [ "$USE_S3_FAKE" = 1 ]; then printf '    %-22s%s\n' "Object store (photos)" "http://127.0.0.1:$S3_PORT, bucket $S3_BUCKET, data in .run/s3/$CLUSTER"; else printf '    %-22s%s\n' "Object store (photos)" "$S3_ENDPOINT, bucket $S3_BUCKET (from the environment)"; fi)
 $(printf '    %-22s%s\n' "PostgreSQL ($PG_NAME)" "127.0.0.1:$PG_PORT, database $PG_DB")
 $([ -n "${PAYMENTS_PID:-}" ] && printf '    %-22s%s\n' "Payments (local fake)" "http://127.0.0.1:$PAYMENTS_PORT   (test card 4242 4242 4242 4242)")
   Logs: .run/ (build.log, migrate.log, seed.log, mail-dev.log, payments-dev.log, s3-dev.log)

@@ -42,6 +42,8 @@ describe('npm start', () => {
 				MAIL_DEV_HTTP_PORT: String(inboxPort),
 				PAYMENTS_FAKE_PORT: String(paymentsPort),
 				S3_DEV_PORT: String(s3Port),
+				// the tests' own store is in the environment; unset, npm start runs its local one
+				S3_ENDPOINT: '',
 				DARTELIER_START_CLUSTER: 'scratch',
 				DARTELIER_START_BUILD: 'node tests/integration/fixtures/noisy-build.mjs'
 			},
