@@ -53,6 +53,30 @@ describe('webhook signatures', () => {
 	});
 });
 
+describe('webhook bodies', () => {
+	it('answers 400 to a signed event whose object lacks the fields the app reads, and stores and changes nothing', async () => {
+		const s = await ownedStudio(app);
+		await upgrade(app, s, 2);
+		const before = await billingOf(s);
+		const sub = [...app.payments.store.subscriptions.values()].find((x) => x.id === before.subscription.id)!;
+		const { status: _status, ...withoutStatus } = sub;
+		const cases: [string, Record<string, unknown>][] = [
+			['no status', withoutStatus],
+			['seats as text', { ...sub, cancel_at_period_end: 'no', items: { data: [{ ...sub.items.data[0], quantity: 'five' }] } }]
+		];
+		for (const [what, object] of cases) {
+			const event = app.payments.store.event('customer.subscription.updated', object as never);
+			const r = await app.payments.deliver(event);
+			expect(r.status, what).toBe(400);
+			const err = JSON.parse(r.body).error;
+			expect(err.code, what).toBe('invalid');
+			expect(err.message, what).toContain('customer.subscription.updated');
+			expect(await eventsStored(event.id), what).toEqual([]);
+		}
+		expect(await billingOf(s)).toEqual(before);
+	});
+});
+
 describe('each event once, in the provider\'s order', () => {
 	it('handles an event delivered twice only once', async () => {
 		const s = await ownedStudio(app);

@@ -3,25 +3,29 @@ import type { Db } from '../db';
 import { ApiError } from '../http-errors';
 import { billingEventOutcomeSet, billingEventRecord, billingOwners } from '../repositories/billing';
 import { studiosById } from '../repositories/studios';
+import { webhookEventCheck } from './event-schemas';
 import { billingEventApply, type EventEffect } from './events';
 import { paymentFailedMailSend } from './mail';
 import { billingConfig, paymentsClient } from './provider';
 
 export type WebhookResult = { duplicate: true; eventId: string } | ({ duplicate: false; eventId: string } & EventEffect);
 
-/** Verifies the provider's signature over the exact bytes received; 400 when missing or wrong. */
+/** Verifies the provider's signature over the exact bytes received (400 when missing or wrong), then the event's fields (400). */
 export function webhookEventVerify(rawBody: string, signature: string | null): Stripe.Event {
 	if (!signature) throw new ApiError(400, 'signature_missing', 'The Stripe-Signature header is missing: only the payment provider may post here.');
 	const config = billingConfig();
 	if (!config.webhookSecret) {
 		throw new ApiError(503, 'billing_unavailable', 'Billing is not set up on this server (STRIPE_WEBHOOK_SECRET is missing).');
 	}
+	let event: Stripe.Event;
 	try {
-		return paymentsClient(config).webhooks.constructEvent(rawBody, signature, config.webhookSecret);
+		event = paymentsClient(config).webhooks.constructEvent(rawBody, signature, config.webhookSecret);
 	} catch (e) {
 		const why = e instanceof Error ? e.message.split('\n')[0] : 'it does not match';
 		throw new ApiError(400, 'signature_invalid', `The webhook signature was not accepted: ${why}`);
 	}
+	// signed is not yet well formed: the fields this app reads are checked with zod
+	return webhookEventCheck(event);
 }
 
 /**
