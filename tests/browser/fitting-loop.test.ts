@@ -98,7 +98,8 @@ describe('back from the fitting', () => {
 		await expect.poll(() => page.locator('[data-testid="fit-pin"]').count()).toBe(0);
 		await pageScreenshot(page, 'editor-fit-note-done');
 		// proposes version 2: the signers are asked by e-mail
-		await page.goto(`${studio}/styles/${styleId}`);
+		// the page must be live before its button is pressed (a click before it hydrates does nothing)
+		await page.goto(`${studio}/styles/${styleId}`, { waitUntil: 'networkidle' });
 		await page.click('button:has-text("Propose")');
 		await page.waitForSelector('[role="status"]:has-text("Proposed")');
 		await cutter.context.close();
