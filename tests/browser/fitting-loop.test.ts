@@ -55,7 +55,8 @@ describe('back from the fitting', () => {
 		await expect.poll(() => room.page.locator('dialog[open] [aria-live]').textContent()).toBe('1 / 2');
 		await room.page.keyboard.press('ArrowRight');
 		await expect.poll(() => room.page.locator('dialog[open] [aria-live]').textContent()).toBe('2 / 2');
-		expect(await room.page.locator('[data-testid="photo-large"]').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(600);
+		// the large photo is drawn once it has loaded (under load that can take a moment after the counter moved)
+		await expect.poll(() => room.page.locator('[data-testid="photo-large"]').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth), { timeout: 15_000 }).toBe(600);
 		await room.page.keyboard.press('Escape');
 		await expect.poll(() => room.page.locator('dialog[open]').count()).toBe(0);
 
