@@ -68,6 +68,8 @@ export interface Can {
 	readonly resolveNotes: boolean;
 	/** Write in a version's comment thread. */
 	readonly comment: boolean;
+	/** Start and cancel size runs (a style made again on other measurement sets). */
+	readonly runSizes: boolean;
 }
 
 /** The roles in their usual order, each with its label, for choosers. */

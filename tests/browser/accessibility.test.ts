@@ -38,6 +38,8 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/[studioId]/measurements/[setId]': `${s}/measurements/${d.setIds[0]}`,
 		'/studios/[studioId]/measurements/[setId]/edit': `${s}/measurements/${d.clientSetId}/edit`,
 		'/studios/[studioId]/fittings/[fittingId]': `${s}/fittings/${d.fittingId}`,
+		'/studios/[studioId]/styles/[styleId]/size-runs': `${s}/styles/${d.styleId}/size-runs`,
+		'/studios/[studioId]/size-runs/[sizeRunId]': `${s}/size-runs/${d.sizeRunId}`,
 		'/settings/notifications': '/settings/notifications'
 	};
 }

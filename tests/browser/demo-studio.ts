@@ -9,6 +9,7 @@ import { dbCreate } from '../../src/lib/server/db/index';
 import type { Role } from '../../src/lib/roles';
 import { measurementSetDuplicate } from '../../src/lib/server/measurements/sets';
 import { usersByEmail } from '../../src/lib/server/repositories/users';
+import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
 
 export interface DemoStudio {
@@ -22,6 +23,8 @@ export interface DemoStudio {
 	clientSetId: string;
 	/** the demo style's first fitting (photos, two notes) */
 	fittingId: string;
+	/** a size run of the demo style (stored for the pages; not put on the queue) */
+	sizeRunId: string;
 	users: { email: string; name: string; role: Role }[];
 	password: string;
 	/** the second demo studio, on the free Sketch plan, and its people (same password) */
@@ -49,10 +52,16 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 			const cutter = await usersByEmail(db, demo.users.find((u) => u.role === 'patterncutter')!.email);
 			client = await measurementSetDuplicate(db, studioId, sets[0].id, cutter!.id, NAME);
 		}
+		let run = await db.selectFrom('size_runs').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirst();
+		if (!run) {
+			const cutter = await usersByEmail(db, demo.users.find((u) => u.role === 'patterncutter')!.email);
+			run = await sizeRunsInsert(db, { studioId, styleId: style.id, createdBy: cutter!.id, sizes: [{ measurementSetId: sets[0].id, name: 'first set' }] });
+		}
 		const fitting = await db.selectFrom('fittings').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirstOrThrow();
 		return {
 			studioId,
 			fittingId: fitting.id,
+			sizeRunId: run.id,
 			styleId: style.id,
 			signedOff: signed,
 			setIds: [sets[0].id, sets[1].id],

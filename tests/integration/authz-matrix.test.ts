@@ -50,6 +50,8 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/studios/new': { GET: { path: '/studios/new', ok: 200 }, POST: { path: '/studios/new', form: {}, ok: 400 } },
 	'/studios/[studioId]': { GET: { path: '/studios/[studioId]', ok: 200 } },
 	'/studios/[studioId]/members': { GET: { path: '/studios/[studioId]/members', ok: 200 } },
+	'/studios/[studioId]/styles/[styleId]/size-runs': { GET: { path: '/studios/[studioId]/styles/[styleId]/size-runs', ok: 404 } },
+	'/studios/[studioId]/size-runs/[sizeRunId]': { GET: { path: '/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 } },
 	'/api/me': { GET: { path: '/api/me', ok: 200 } },
 	'/api/studios': { GET: { path: '/api/studios', ok: 200 }, POST: { path: '/api/studios', json: {}, ok: 400 } },
 	'/api/studios/[studioId]': {

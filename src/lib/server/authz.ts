@@ -65,6 +65,8 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/styles/[styleId]/cutting-list': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/import': { GET: EDITORS },
 	'/studios/[studioId]/fittings/[fittingId]': { GET: ALL_ROLES },
+	'/studios/[studioId]/styles/[styleId]/size-runs': { GET: DRAFT_READERS },
+	'/studios/[studioId]/size-runs/[sizeRunId]': { GET: DRAFT_READERS },
 	'/settings/notifications': { GET: 'signed_in', POST: 'signed_in' },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)
 	'/studios/[studioId]/measurements': { GET: ALL_ROLES },
@@ -151,7 +153,8 @@ export function roleCan(role: Role): Can {
 		recordFittings: roleMay(role, `${studio}/styles/[styleId]/fittings`, 'POST'),
 		pinNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes`, 'POST'),
 		resolveNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes/[noteId]/done`, 'POST'),
-		comment: roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/comments`, 'POST')
+		comment: roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/comments`, 'POST'),
+		runSizes: roleMay(role, `${studio}/styles/[styleId]/size-runs`, 'POST')
 	};
 }
 
