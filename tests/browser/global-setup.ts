@@ -2,6 +2,7 @@
 // loopback port with the test database and the project's fake SMTP server with its inbox page.
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
+import { sql } from 'kysely';
 import type { TestProject } from 'vitest/node';
 import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart } from '../../scripts/payments-fake/server';
 import { dbCreate } from '../../src/lib/server/db/index';
@@ -41,6 +42,8 @@ export default async function setup(project: TestProject) {
 	const db = dbCreate(databaseUrl, 1);
 	try {
 		await migrateToLatest(db);
+		// every run starts with fresh rate-limit counts (all its requests come from 127.0.0.1)
+		await sql`delete from rate_limits`.execute(db);
 	} finally {
 		await db.destroy();
 	}

@@ -1,6 +1,7 @@
 // Integration tests run against the project's own test PostgreSQL cluster (never one already
 // running elsewhere): start it (idempotent), migrate, and hand the URL to the test workers.
 import { execFileSync } from 'node:child_process';
+import { sql } from 'kysely';
 import type { TestProject } from 'vitest/node';
 import { dbCreate } from '../../src/lib/server/db/index';
 import { migrateToLatest } from '../../src/lib/server/db/migrator';
@@ -21,6 +22,8 @@ export default async function setup(project: TestProject) {
 	const db = dbCreate(url, 1);
 	try {
 		await migrateToLatest(db);
+		// every run starts with fresh rate-limit counts (all its requests come from 127.0.0.1)
+		await sql`delete from rate_limits`.execute(db);
 	} finally {
 		await db.destroy();
 	}

@@ -40,7 +40,7 @@ describe('migrations', () => {
 		expect(up.length).toBeGreaterThan(0);
 		expect(up.every((l) => l.endsWith('Success'))).toBe(true);
 		const after = await tables(scratch);
-		for (const t of ['users', 'sessions', 'studios', 'memberships', 'invitations', 'password_resets', 'sign_in_limits']) {
+		for (const t of ['users', 'sessions', 'studios', 'memberships', 'invitations', 'password_resets', 'sign_in_limits', 'rate_limits']) {
 			expect(after).toContain(t);
 		}
 

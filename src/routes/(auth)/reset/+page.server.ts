@@ -3,6 +3,8 @@ import { z } from 'zod';
 import { passwordResetRequest } from '$lib/server/auth/accounts';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
+import { rateLimitsTake } from '$lib/server/rate-limits';
+import { emailNormalize } from '$lib/server/repositories/users';
 import { emailSchema, fieldErrors, formObject } from '$lib/server/validation';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -20,6 +22,15 @@ export const actions: Actions = {
 		const parsed = schema.safeParse(raw);
 		if (!parsed.success) {
 			return fail(400, { email: raw.email ?? '', errors: fieldErrors(parsed.error), sent: false });
+		}
+		// counted whether or not the address has an account, so the answer tells nothing either way
+		const limited = await rateLimitsTake([
+			['reset_email', emailNormalize(parsed.data.email)],
+			['reset_address', event.getClientAddress()]
+		]);
+		if (limited) {
+			event.setHeaders({ 'retry-after': String(limited.retryAfterSeconds) });
+			return fail(429, { email: parsed.data.email, errors: { email: [limited.message] }, sent: false });
 		}
 		try {
 			await passwordResetRequest(db(), { email: parsed.data.email, origin: event.url.origin });

@@ -5,6 +5,7 @@ import { invitationSend } from '$lib/server/auth/accounts';
 import { OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
+import { rateLimitedError, rateLimitTake } from '$lib/server/rate-limits';
 import { invitationsOpenForStudio, type InvitationRow } from '$lib/server/repositories/invitations';
 import { emailSchema, roleSchema } from '$lib/server/validation';
 import type { RequestHandler } from './$types';
@@ -28,6 +29,8 @@ const createSchema = z.object({ email: emailSchema, role: roleSchema });
 export const POST: RequestHandler = apiRoute(async (event) => {
 	const { studioId, user } = await requireRole(event, OWNER);
 	const body = await readJson(event.request, createSchema);
+	const limited = await rateLimitTake('invite_studio', studioId);
+	if (limited) throw rateLimitedError(limited);
 	// a pending invitation takes a seat: invitationSend refuses it (402) past the plan's seats, counting
 	// and inserting under the studio's lock
 	let r;

@@ -5,6 +5,7 @@ import { FITTERS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { fittingOr404, photoUpload } from '$lib/server/fittings/fittings';
 import { photoFileRead } from '$lib/server/fittings/photo-read';
+import { rateLimitUpload } from '$lib/server/rate-limits';
 import { uuidSchema } from '$lib/server/validation';
 import type { RequestHandler } from './$types';
 
@@ -18,6 +19,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	const { studioId, user } = await requireRole(event, FITTERS);
 	const { fittingId } = parseParams(event.params, params);
 	await fittingOr404(db(), studioId, fittingId);
+	await rateLimitUpload('photo_user', user.id, event.request);
 	const file = await photoFileRead(event.request);
 	const photo = await photoUpload(db(), { studioId, fittingId, userId: user.id, name: file.name, bytes: file.bytes });
 	return json({ photo }, { status: 201 });

@@ -5,6 +5,7 @@ import { EDITORS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { importFileRead, importParse, importPreview, importSave } from '$lib/server/exports/import';
 import { styleOr404 } from '$lib/server/versions/access';
+import { rateLimitUpload } from '$lib/server/rate-limits';
 import { uuidSchema } from '$lib/server/validation';
 import type { RequestHandler } from './$types';
 
@@ -20,6 +21,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 	const { styleId } = parseParams(event.params, params);
 	const q = parseParams(Object.fromEntries(event.url.searchParams), query);
 	await styleOr404(db(), studioId, styleId);
+	await rateLimitUpload('import_user', user.id, event.request);
 	const file = await importFileRead(event.request);
 	const { kind, pieces } = importParse(file.name, file.bytes);
 	if (q.preview) return json({ kind, fileName: file.name, pieces: importPreview(pieces) });
