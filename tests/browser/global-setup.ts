@@ -66,6 +66,8 @@ export default async function setup(project: TestProject) {
 			PORT: String(appPort),
 			ORIGIN: `http://127.0.0.1:${appPort}`,
 			BODY_SIZE_LIMIT: '16M',
+			// every browser test signs up a studio of its own, all from 127.0.0.1
+			RATE_LIMIT_SIGNUP_ADDRESS: '1000',
 			SMTP_HOST: '127.0.0.1',
 			SMTP_PORT: String(smtpPort),
 			MAIL_FROM: 'Dartelier <studio@dartelier.localhost>',

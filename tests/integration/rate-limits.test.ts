@@ -5,7 +5,7 @@ import { randomBytes } from 'node:crypto';
 import { sql } from 'kysely';
 import { afterAll, beforeAll, beforeEach, describe, expect, inject, it } from 'vitest';
 import { poolCreate } from '../../src/lib/server/db/index';
-import { RATE_LIMITS, rateLimiterCreate, type RateLimitName } from '../../src/lib/server/rate-limits';
+import { RATE_LIMITS, rateLimiterCreate, rateLimitPoints, type RateLimitName } from '../../src/lib/server/rate-limits';
 import { appProcessStart } from './app-process';
 import { startApp, type RunningApp } from './app-server';
 import { fittingWorld, storageEnvUse, upload, type FittingWorld } from './fittings-support';
@@ -33,7 +33,7 @@ beforeEach(async () => {
 
 /** Uses up what is left of an allowance from this process, as another app process would. */
 async function useUp(name: RateLimitName, key: string, already = 0): Promise<void> {
-	await rateLimiterCreate(name, pool).consume(key, RATE_LIMITS[name].points - already);
+	await rateLimiterCreate(name, pool).consume(key, rateLimitPoints(name) - already);
 }
 
 /** The key the app counted a client address under (whatever form 127.0.0.1 took). */

@@ -8,7 +8,9 @@ import { ApiError } from './http-errors';
  * rate_limits) so that every app process behind a load balancer shares one count. Each limit allows
  * `points` requests per `durationS` seconds for one key (an e-mail address, a client address, a
  * studio, a user); past it the request is answered 429 with Retry-After until the window ends.
- * Sign-in failures are throttled apart, in auth/throttle.ts. The README lists these figures.
+ * Sign-in failures are throttled apart, in auth/throttle.ts. The README lists these figures. An
+ * operator may change an allowance with `RATE_LIMIT_<NAME>` (e.g. `RATE_LIMIT_SIGNUP_ADDRESS=100` where a
+ * whole school signs up from one address); every process on the database should then use the same value.
  */
 export const RATE_LIMITS = {
 	/** reset links asked for one e-mail address (whether or not it has an account) */
@@ -32,6 +34,12 @@ export interface RateLimited {
 	message: string;
 }
 
+/** The allowance of a limit: `RATE_LIMIT_<NAME>` from the environment when a positive integer, else the table's. */
+export function rateLimitPoints(name: RateLimitName): number {
+	const set = Number(process.env[`RATE_LIMIT_${name.toUpperCase()}`]);
+	return Number.isInteger(set) && set > 0 ? set : RATE_LIMITS[name].points;
+}
+
 /** A limiter of the table above on a given pool: the app's own, or a test's on the same database. */
 export function rateLimiterCreate(name: RateLimitName, pool: pg.Pool): RateLimiterPostgres {
 	const limit = RATE_LIMITS[name];
@@ -42,7 +50,7 @@ export function rateLimiterCreate(name: RateLimitName, pool: pg.Pool): RateLimit
 		tableCreated: true,
 		clearExpiredByTimeout: false,
 		keyPrefix: name,
-		points: limit.points,
+		points: rateLimitPoints(name),
 		duration: limit.durationS
 	});
 }
@@ -70,7 +78,7 @@ export function rateLimitedMessage(name: RateLimitName, msBeforeNext: number, no
 	const per = limit.durationS === 3600 ? 'an hour' : `${Math.round(limit.durationS / 60)} minutes`;
 	return {
 		retryAfterSeconds: seconds,
-		message: `Too many ${limit.what}: ${limit.points} are allowed in ${per}. Try again in ${wait} (after ${at} UTC).`
+		message: `Too many ${limit.what}: ${rateLimitPoints(name)} are allowed in ${per}. Try again in ${wait} (after ${at} UTC).`
 	};
 }
 
