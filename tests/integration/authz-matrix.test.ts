@@ -21,6 +21,8 @@ interface Sample {
 	ok: number | ((actor: Actor) => number);
 	/** The request ends the visitor's session: use a session of its own. */
 	endsSession?: boolean;
+	/** The request ends the visitor's membership or account: a new member of the same role makes it. */
+	freshMember?: boolean;
 }
 
 /**
@@ -52,7 +54,12 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/studios/[studioId]/members': { GET: { path: '/studios/[studioId]/members', ok: 200 } },
 	'/studios/[studioId]/styles/[styleId]/size-runs': { GET: { path: '/studios/[studioId]/styles/[styleId]/size-runs', ok: 404 } },
 	'/studios/[studioId]/size-runs/[sizeRunId]': { GET: { path: '/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 } },
-	'/api/me': { GET: { path: '/api/me', ok: 200 } },
+	'/api/me': { GET: { path: '/api/me', ok: 200 }, DELETE: { path: '/api/me', json: {}, ok: 400 } },
+	'/api/me/export': { GET: { path: '/api/me/export', ok: 200 } },
+	'/settings/account': {
+		GET: { path: '/settings/account', ok: 200 },
+		POST: { path: '/settings/account?/delete', form: {}, ok: 400 }
+	},
 	'/api/studios': { GET: { path: '/api/studios', ok: 200 }, POST: { path: '/api/studios', json: {}, ok: 400 } },
 	'/api/studios/[studioId]': {
 		GET: { path: '/api/studios/[studioId]', ok: 200 },
@@ -67,6 +74,8 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 		GET: { path: '/api/studios/[studioId]/invitations', ok: 200 },
 		POST: { path: '/api/studios/[studioId]/invitations', json: {}, ok: 400 }
 	},
+	'/api/studios/[studioId]/invitations/[invitationId]': { DELETE: { path: '/api/studios/[studioId]/invitations/[invitationId]', ok: 404 } },
+	'/api/studios/[studioId]/membership': { DELETE: { path: '/api/studios/[studioId]/membership', ok: 204, freshMember: true } },
 	// billing: owners only; the provider's webhook is open to anyone, and refuses a body without its signature
 	'/studios/[studioId]/billing': { GET: { path: '/studios/[studioId]/billing', ok: 200 } },
 	'/api/studios/[studioId]/billing': { GET: { path: '/api/studios/[studioId]/billing?invoices=no', ok: 200 } },
@@ -210,6 +219,11 @@ describe('authorization matrix', () => {
 		const target = fill(sample?.path ?? genericPath(routeId));
 		let client = clients[actor];
 		if (sample?.endsSession && actor !== 'anonymous') client = await sessionClient(app.baseUrl, users[actor]);
+		if (sample?.freshMember && actor !== 'anonymous' && actor !== 'outsider') {
+			const u = await userMake(actor);
+			await memberAdd(studioId, u.id, actor);
+			client = await sessionClient(app.baseUrl, u.id);
+		}
 		const body =
 			sample?.form !== undefined
 				? { form: sample.form }
@@ -245,7 +259,7 @@ describe('default deny', () => {
 	it('answers 405 with Allow for a method the table does not list', async () => {
 		const r = await clients.owner.request('PUT', '/api/me', { json: {} });
 		expect(r.status).toBe(405);
-		expect(r.headers.get('allow')).toBe('GET, HEAD');
+		expect(r.headers.get('allow')).toBe('GET, DELETE, HEAD');
 		expect((await r.json()).error.code).toBe('method_not_allowed');
 		const page = await clients.owner.request('POST', `/studios/${studioId}`, { form: {} });
 		expect(page.status).toBe(405);

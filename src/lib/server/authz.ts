@@ -68,6 +68,7 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/styles/[styleId]/size-runs': { GET: DRAFT_READERS },
 	'/studios/[studioId]/size-runs/[sizeRunId]': { GET: DRAFT_READERS },
 	'/settings/notifications': { GET: 'signed_in', POST: 'signed_in' },
+	'/settings/account': { GET: 'signed_in', POST: 'signed_in' },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)
 	'/studios/[studioId]/measurements': { GET: ALL_ROLES },
 	'/studios/[studioId]/measurements/new': { GET: EDITORS, POST: EDITORS },
@@ -78,13 +79,17 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	// billing: the plan, seats and invoices are the owners' business
 	'/studios/[studioId]/billing': { GET: OWNER },
 	// JSON API
-	'/api/me': { GET: 'signed_in' },
+	'/api/me': { GET: 'signed_in', DELETE: 'signed_in' },
+	'/api/me/export': { GET: 'signed_in' },
 	'/api/me/notifications': { GET: 'signed_in', PATCH: 'signed_in' },
 	'/api/studios': { GET: 'signed_in', POST: 'signed_in' },
 	'/api/studios/[studioId]': { GET: ALL_ROLES, PATCH: OWNER },
 	'/api/studios/[studioId]/members': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/members/[userId]': { PATCH: OWNER, DELETE: OWNER },
 	'/api/studios/[studioId]/invitations': { GET: OWNER, POST: OWNER },
+	'/api/studios/[studioId]/invitations/[invitationId]': { DELETE: OWNER },
+	// any member leaves a studio themselves (its last owner cannot: 409)
+	'/api/studios/[studioId]/membership': { DELETE: ALL_ROLES },
 	'/api/studios/[studioId]/billing': { GET: OWNER },
 	'/api/studios/[studioId]/billing/checkout': { POST: OWNER },
 	'/api/studios/[studioId]/billing/portal': { POST: OWNER },

@@ -1,5 +1,6 @@
 import { sql } from 'kysely';
 import type { DbOrTx } from '../db';
+import { authorName } from './former-member';
 import type { FitNoteCategory, FitNoteStatus } from '../db/schema';
 
 export interface FitNoteRow {
@@ -60,7 +61,7 @@ function selectNotes(db: DbOrTx) {
 			'fit_notes.assigned_to as assignedTo',
 			'assignee.name as assignedToName',
 			'fit_notes.created_by as createdBy',
-			'author.name as createdByName',
+			authorName('author.name', 'createdByName'),
 			'fit_notes.created_at as createdAt',
 			'fit_notes.updated_at as updatedAt'
 		]);

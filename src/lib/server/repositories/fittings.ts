@@ -1,5 +1,6 @@
 import { sql } from 'kysely';
 import type { DbOrTx } from '../db';
+import { authorName } from './former-member';
 
 export interface FittingRow {
 	id: string;
@@ -43,7 +44,7 @@ function selectFittings(db: DbOrTx) {
 			'fittings.fabric',
 			'fittings.notes',
 			'fittings.created_by as createdBy',
-			'users.name as createdByName',
+			authorName('users.name', 'createdByName'),
 			'fittings.created_at as createdAt'
 		]);
 }

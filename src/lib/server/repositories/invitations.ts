@@ -97,3 +97,20 @@ export async function invitationsOpenForEmail(db: DbOrTx, studioId: string, emai
 export async function invitationsDelete(db: DbOrTx, id: string): Promise<void> {
 	await db.deleteFrom('invitations').where('id', '=', id).execute();
 }
+
+/**
+ * Withdraws an invitation that has not been used: its row goes, so its link no longer works and its seat
+ * is free. 'used' when it was accepted already, 'missing' when the studio has no invitation of that id.
+ */
+export async function invitationsWithdraw(db: DbOrTx, studioId: string, id: string): Promise<'withdrawn' | 'used' | 'missing'> {
+	const gone = await db
+		.deleteFrom('invitations')
+		.where('id', '=', id)
+		.where('studio_id', '=', studioId)
+		.where('used_at', 'is', null)
+		.returning('id')
+		.executeTakeFirst();
+	if (gone) return 'withdrawn';
+	const used = await db.selectFrom('invitations').select('id').where('id', '=', id).where('studio_id', '=', studioId).executeTakeFirst();
+	return used ? 'used' : 'missing';
+}

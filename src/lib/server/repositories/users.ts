@@ -50,3 +50,26 @@ export function isUniqueViolation(e: unknown): boolean {
 export async function usersLockForStudios(db: DbOrTx, id: string): Promise<void> {
 	await db.selectFrom('users').select('id').where('id', '=', id).forUpdate().executeTakeFirst();
 }
+
+/** The studios the person owns, with their names. */
+export async function usersOwnedStudios(db: DbOrTx, userId: string): Promise<{ studioId: string; studioName: string }[]> {
+	return db
+		.selectFrom('memberships')
+		.innerJoin('studios', 'studios.id', 'memberships.studio_id')
+		.select(['studios.id as studioId', 'studios.name as studioName'])
+		.where('memberships.user_id', '=', userId)
+		.where('memberships.role', '=', 'owner')
+		.orderBy('studios.name')
+		.execute();
+}
+
+/**
+ * Deletes the person's row. Their sessions, memberships, reset links and e-mail settings go with it
+ * (cascade); every row they authored keeps its place with its author set to NULL. Returns how many
+ * studios they were a member of.
+ */
+export async function usersDelete(db: DbOrTx, id: string): Promise<number> {
+	const m = await db.selectFrom('memberships').select((eb) => eb.fn.countAll<number>().as('n')).where('user_id', '=', id).executeTakeFirstOrThrow();
+	await db.deleteFrom('users').where('id', '=', id).execute();
+	return Number(m.n);
+}

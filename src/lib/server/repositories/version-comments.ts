@@ -1,4 +1,5 @@
 import type { DbOrTx } from '../db';
+import { authorName } from './former-member';
 
 export interface VersionCommentRow {
 	id: string;
@@ -26,7 +27,7 @@ export async function versionCommentsOf(db: DbOrTx, versionId: string): Promise<
 			'version_comments.id',
 			'version_comments.version_id as versionId',
 			'version_comments.author_id as authorId',
-			'users.name as authorName',
+			authorName('users.name', 'authorName'),
 			'version_comments.body',
 			'version_comments.created_at as createdAt'
 		])

@@ -1,4 +1,5 @@
 import type { DbOrTx } from '../db';
+import { authorName } from './former-member';
 import type { ReviewKind } from '../db/schema';
 
 /** Something the signer saw and accepted when signing off: a seam out of tolerance, an open fit note. */
@@ -45,7 +46,7 @@ export async function versionReviewsOf(db: DbOrTx, versionId: string): Promise<V
 			'version_reviews.version_id as versionId',
 			'version_reviews.kind',
 			'version_reviews.actor_id as actorId',
-			'users.name as actorName',
+			authorName('users.name', 'actorName'),
 			'version_reviews.comment',
 			'version_reviews.acknowledged',
 			'version_reviews.created_at as createdAt'

@@ -1,4 +1,5 @@
 import type { DbOrTx } from '../db';
+import { authorName } from './former-member';
 import type { VersionState } from '../db/schema';
 
 export interface VersionSummary {
@@ -27,7 +28,7 @@ const summary = [
 	'piece_versions.number',
 	'piece_versions.parent_id as parentId',
 	'piece_versions.author_id as authorId',
-	'users.name as authorName',
+	authorName('users.name', 'authorName'),
 	'piece_versions.message',
 	'piece_versions.state',
 	'piece_versions.created_at as createdAt',
