@@ -40,7 +40,8 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/[studioId]/fittings/[fittingId]': `${s}/fittings/${d.fittingId}`,
 		'/studios/[studioId]/styles/[styleId]/size-runs': `${s}/styles/${d.styleId}/size-runs`,
 		'/studios/[studioId]/size-runs/[sizeRunId]': `${s}/size-runs/${d.sizeRunId}`,
-		'/settings/notifications': '/settings/notifications'
+		'/settings/notifications': '/settings/notifications',
+		'/settings/account': '/settings/account'
 	};
 }
 
