@@ -8,6 +8,8 @@ declare global {
 			fields?: Record<string, string[] | undefined>;
 		}
 		interface Locals {
+			/** The request's id: in its response's `x-request-id` and in every log line written for it. */
+			requestId: string;
 			user: { id: string; email: string; name: string } | null;
 			session: { id: string; expiresAt: Date } | null;
 			/** Set when the database could not be reached while answering (answered 503). */

@@ -24,12 +24,21 @@ async function freePort(): Promise<number> {
 	});
 }
 
-export async function appProcessStart(databaseUrl: string): Promise<AppProcess> {
+export async function appProcessStart(databaseUrl: string, extraEnv: NodeJS.ProcessEnv = {}): Promise<AppProcess> {
 	if (!existsSync('build/index.js')) throw new Error('build/index.js is missing: run `npx vite build` first');
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
 	const child = spawn(process.execPath, ['build'], {
-		env: { ...process.env, DATABASE_URL: databaseUrl, HOST: '127.0.0.1', PORT: String(port), ORIGIN: baseUrl, BODY_SIZE_LIMIT: '12M' },
+		env: {
+			...process.env,
+			LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
+			DATABASE_URL: databaseUrl,
+			HOST: '127.0.0.1',
+			PORT: String(port),
+			ORIGIN: baseUrl,
+			BODY_SIZE_LIMIT: '12M',
+			...extraEnv
+		},
 		stdio: ['ignore', 'pipe', 'pipe']
 	});
 	let out = '';

@@ -23,6 +23,8 @@ export async function startApp(): Promise<RunningApp> {
 	const payments = await paymentsFakeStart({ port: 0, demo: true });
 	const env: NodeJS.ProcessEnv = {
 		...process.env,
+		// the app's own request lines stay out of the tests' output; trouble (warn, error) still shows
+		LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
 		DATABASE_URL: inject('databaseUrl'),
 		S3_ENDPOINT: inject('s3Endpoint'),
 		SMTP_HOST: '127.0.0.1',

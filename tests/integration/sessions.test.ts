@@ -1,7 +1,7 @@
 // Sessions, sign-in, sign-out, throttling, cross-site form posts and security headers, over HTTP
 // against the built app.
 import { createHash } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { startApp, type RunningApp } from './app-server';
 import {
 	Client,
@@ -247,6 +247,24 @@ describe('security headers', () => {
 		// a fresh nonce each time
 		const again = (await new Client(app.baseUrl).get('/signin')).headers.get('content-security-policy')!;
 		expect(again).not.toBe(csp);
+	});
+
+	it('adds the object store origin to the img-src of a rendered page, for fitting photos', async () => {
+		const r = await new Client(app.baseUrl).get('/signin');
+		const imgSrc = r.headers.get('content-security-policy')!.split(';').map((d) => d.trim()).find((d) => d.startsWith('img-src'))!;
+		expect(imgSrc.split(' ')).toContain(new URL(inject('s3Endpoint')).origin);
+	});
+
+	it('gives every answer a request id, keeping a plain one a proxy sent and replacing one that is not', async () => {
+		const page = await new Client(app.baseUrl).get('/signin');
+		const api = await new Client(app.baseUrl).api('GET', '/api/me');
+		const ids = [page.headers.get('x-request-id'), api.headers.get('x-request-id')];
+		for (const id of ids) expect(id).toMatch(/^[0-9a-f-]{36}$/);
+		expect(ids[0]).not.toBe(ids[1]);
+		const kept = await new Client(app.baseUrl).get('/signin', { 'x-request-id': 'lb-7f3a9c21.0042' });
+		expect(kept.headers.get('x-request-id')).toBe('lb-7f3a9c21.0042');
+		const replaced = await new Client(app.baseUrl).get('/signin', { 'x-request-id': 'a b<script>' });
+		expect(replaced.headers.get('x-request-id')).toMatch(/^[0-9a-f-]{36}$/);
 	});
 
 	it('sends the headers on API answers too', async () => {

@@ -1,3 +1,4 @@
+import { log } from './log';
 import { isHttpError, isRedirect, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { databaseUnavailableJson } from './db/unavailable-response';
@@ -24,7 +25,7 @@ export function apiRoute<E extends RequestEvent>(handler: (event: E) => Promise<
 			}
 			if (isRedirect(e)) throw e;
 			if (errorIsDatabaseUnavailable(e)) return databaseUnavailableJson();
-			console.error(`[api] ${event.request.method} ${event.url.pathname}:`, e);
+			log.error({ method: event.request.method, route: event.route.id, err: e }, 'unexpected error in an API route');
 			return jsonError(500);
 		}
 	};

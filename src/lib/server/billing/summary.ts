@@ -1,3 +1,4 @@
+import { log } from '../log';
 import { PLAN_NAMES, planAllows } from '../../billing/plans';
 import type { BillingSummary } from '../../billing/summary';
 
@@ -30,7 +31,7 @@ async function invoicesOf(db: Db, studioId: string, customerId: string | null): 
 		}
 		return { rows: await billingInvoicesOfStudio(db, studioId), fresh: true };
 	} catch (e) {
-		console.warn(`[billing] invoices of ${studioId} from the provider failed, showing the ones last seen:`, e instanceof Error ? e.message : e);
+		log.warn({ studioId, err: e }, 'invoices from the payment provider failed, showing the ones last seen');
 		return { rows: await billingInvoicesOfStudio(db, studioId), fresh: false };
 	}
 }

@@ -1,3 +1,4 @@
+import { log } from '../log';
 import type Stripe from 'stripe';
 import type { Db } from '../db';
 import { ApiError } from '../http-errors';
@@ -55,7 +56,7 @@ export async function webhookHandle(db: Db, event: Stripe.Event, origin: string)
 				});
 			} catch (e) {
 				// The event stays handled (the banner shows it); the mail is lost, and the log says so.
-				console.error(`[billing] could not mail ${owner.email} about a failed payment:`, e);
+				log.error({ studioId: result.studioId, err: e }, 'could not mail an owner about a failed payment');
 			}
 		}
 	}

@@ -1,3 +1,4 @@
+import { log } from '../log';
 import { Kysely, PostgresDialect, type Transaction } from 'kysely';
 import pg from 'pg';
 import type { Database } from './schema';
@@ -36,7 +37,7 @@ export function poolCreate(url: string, max: number, name = 'app'): pg.Pool {
 	let lastLogMs = 0;
 	pool.on('error', (err) => {
 		const now = Date.now();
-		if (now - lastLogMs > 5000) console.warn(`[db:${name}] an idle connection was dropped: ${err.message}`);
+		if (now - lastLogMs > 5000) log.warn({ pool: name, err }, 'an idle database connection was dropped');
 		lastLogMs = now;
 	});
 	return pool;

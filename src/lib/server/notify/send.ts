@@ -1,3 +1,4 @@
+import { log } from '../log';
 import type { DbOrTx } from '../db';
 import type { NotificationKind } from '../db/schema';
 import { mailSend, type Mail } from '../mail/send';
@@ -22,7 +23,7 @@ export async function notify(
 			await mailSend(make(r));
 			sent += 1;
 		} catch (e) {
-			console.error(`[notify] ${kind} to ${r.email} could not be sent: ${(e as Error).message}`);
+			log.error({ kind, userId: r.id, err: e }, 'notification could not be sent');
 		}
 	}
 	return sent;

@@ -1,3 +1,4 @@
+import { log } from '../log';
 import PgBoss from 'pg-boss';
 import { databaseUrl, db, poolCreate } from '../db';
 import { sizeRunExecute } from './run';
@@ -27,7 +28,7 @@ function bossCreate(): PgBoss {
 	let lastLogMs = 0;
 	boss.on('error', (e) => {
 		const now = Date.now();
-		if (now - lastLogMs > 5000) console.warn(`[queue] ${(e as Error).message}`);
+		if (now - lastLogMs > 5000) log.warn({ err: e }, 'size-run queue error');
 		lastLogMs = now;
 	});
 	return boss;
@@ -76,7 +77,7 @@ export function sizeRunWorkerStart(): void {
 				for (const job of jobs) await sizeRunExecute(db(), job.data.sizeRunId);
 			});
 		} catch (e) {
-			console.warn(`[queue] the size-run worker could not start (${(e as Error).message}); trying again in 5 s`);
+			log.warn({ err: e }, 'the size-run worker could not start; trying again in 5 s');
 			setTimeout(attempt, 5000).unref();
 		}
 	};
