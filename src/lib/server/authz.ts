@@ -48,6 +48,9 @@ export const COMMENTERS = ['owner', 'patterncutter', 'designer'] as const satisf
 export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	// pages
 	'/': { GET: 'public' },
+	// health probes of a load balancer (README "Operating it")
+	'/healthz': { GET: 'public' },
+	'/readyz': { GET: 'public' },
 	'/(auth)/signup': { GET: 'public', POST: 'public' },
 	'/(auth)/signin': { GET: 'public', POST: 'public' },
 	'/(auth)/signout': { GET: 'public', POST: 'public' },
