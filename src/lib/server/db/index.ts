@@ -54,3 +54,10 @@ export function db(): Db {
 	shared ??= dbCreate();
 	return shared;
 }
+
+/** Closes the app's pool (on shutdown): waits for the connections in use to be given back. */
+export async function dbClose(): Promise<void> {
+	const closing = shared;
+	shared = undefined;
+	await closing?.destroy();
+}

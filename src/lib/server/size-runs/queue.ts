@@ -14,9 +14,12 @@ import { sizeRunExecute } from './run';
 export const SIZE_RUN_QUEUE = 'size-run';
 
 let started: Promise<PgBoss> | null = null;
+let bossPool: ReturnType<typeof poolCreate> | null = null;
+let stopping = false;
 
 function bossCreate(): PgBoss {
 	const pool = poolCreate(databaseUrl(), 3, 'queue');
+	bossPool = pool;
 	const boss = new PgBoss({
 		db: { executeSql: async (text: string, values?: unknown[]) => pool.query(text, values as unknown[]) },
 		schema: 'pgboss',
@@ -48,6 +51,25 @@ export function sizeRunQueue(): Promise<PgBoss> {
 	return started;
 }
 
+/** Resolves when the queue is started and answers (readiness); rejects otherwise. */
+export async function sizeRunQueueCheck(): Promise<void> {
+	const boss = await sizeRunQueue();
+	await boss.getQueueSize(SIZE_RUN_QUEUE);
+}
+
+/**
+ * Stops this process's worker and the queue (on shutdown): no new job is taken, a run in progress gets
+ * up to `timeoutMs` to finish, then the queue's pool is closed.
+ */
+export async function sizeRunQueueStop(timeoutMs = 10_000): Promise<void> {
+	stopping = true;
+	const boss = started ? await started.catch(() => null) : null;
+	started = null;
+	if (boss) await boss.stop({ graceful: true, wait: true, close: false, timeout: timeoutMs });
+	await bossPool?.end().catch(() => undefined);
+	bossPool = null;
+}
+
 /** Puts a run on the queue; the job's id. */
 export async function sizeRunEnqueue(runId: string): Promise<string | null> {
 	const boss = await sizeRunQueue();
@@ -68,9 +90,10 @@ let working = false;
  * not reachable at start, it tries again every 5 s.
  */
 export function sizeRunWorkerStart(): void {
-	if (working || process.env.DARTELIER_SIZE_RUN_WORKER === 'off') return;
+	if (working || stopping || process.env.DARTELIER_SIZE_RUN_WORKER === 'off') return;
 	working = true;
 	const attempt = async () => {
+		if (stopping) return;
 		try {
 			const boss = await sizeRunQueue();
 			await boss.work<{ sizeRunId: string }>(SIZE_RUN_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async (jobs) => {
