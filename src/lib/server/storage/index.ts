@@ -1,8 +1,11 @@
 import { randomBytes } from 'node:crypto';
 import {
+	CreateBucketCommand,
 	DeleteObjectsCommand,
 	GetObjectCommand,
+	HeadBucketCommand,
 	HeadObjectCommand,
+	ListObjectsV2Command,
 	PutObjectCommand,
 	S3Client
 } from '@aws-sdk/client-s3';
@@ -85,6 +88,49 @@ export async function storageGet(key: string): Promise<Uint8Array | null> {
 	} catch (e) {
 		if (notFound(e)) return null;
 		throw e;
+	}
+}
+
+/** The object's bytes and type, or null when there is none under this key (backups). */
+export async function storageGetWithType(key: string): Promise<{ bytes: Uint8Array; contentType: string } | null> {
+	const config = storageConfig();
+	try {
+		const r = await client(config).send(new GetObjectCommand({ Bucket: config.bucket, Key: key }));
+		const bytes = r.Body ? await r.Body.transformToByteArray() : new Uint8Array();
+		return { bytes, contentType: r.ContentType ?? 'application/octet-stream' };
+	} catch (e) {
+		if (notFound(e)) return null;
+		throw e;
+	}
+}
+
+/** Every key in the bucket, in the store's order (backups). */
+export async function storageList(): Promise<string[]> {
+	const config = storageConfig();
+	const keys: string[] = [];
+	let token: string | undefined;
+	do {
+		const r = await client(config).send(new ListObjectsV2Command({ Bucket: config.bucket, ContinuationToken: token }));
+		for (const o of r.Contents ?? []) if (o.Key) keys.push(o.Key);
+		token = r.IsTruncated ? r.NextContinuationToken : undefined;
+	} while (token);
+	return keys;
+}
+
+/** Resolves when the store answers for the bucket (readiness); rejects otherwise. */
+export async function storageReachable(abortSignal?: AbortSignal): Promise<void> {
+	const config = storageConfig();
+	await client(config).send(new HeadBucketCommand({ Bucket: config.bucket }), { abortSignal });
+}
+
+/** Creates the bucket when the store has none of that name (a restore into a new store). */
+export async function storageBucketEnsure(): Promise<void> {
+	const config = storageConfig();
+	try {
+		await client(config).send(new HeadBucketCommand({ Bucket: config.bucket }));
+	} catch (e) {
+		if (!notFound(e)) throw e;
+		await client(config).send(new CreateBucketCommand({ Bucket: config.bucket }));
 	}
 }
 
