@@ -51,7 +51,7 @@ export default async function setup(project: TestProject) {
 	const s3 = await s3FakeStart('test-browser');
 	process.env.S3_ENDPOINT = s3.endpoint;
 	process.env.S3_BUCKET = s3.bucket;
-	const env = { ...process.env, DATABASE_URL: databaseUrl, S3_ENDPOINT: s3.endpoint, S3_BUCKET: s3.bucket };
+	const env = { ...process.env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn', DATABASE_URL: databaseUrl, S3_ENDPOINT: s3.endpoint, S3_BUCKET: s3.bucket };
 	// the payment provider's local fake, in this process; its webhooks go to the app below
 	const payments = await paymentsFakeStart({ port: 0, demo: true, webhookUrl: `http://127.0.0.1:${appPort}/api/billing/webhook` });
 	const mail = spawn('npx', ['tsx', 'scripts/mail-dev.ts'], {
