@@ -180,6 +180,9 @@ export async function draftedStyleDiscard(db: Db, studioId: string, styleId: str
 	await db.transaction().execute(async (tx) => {
 		const pieces = tx.selectFrom('pieces').select('id').where('style_id', '=', styleId);
 		await tx.updateTable('pieces').set({ head_version_id: null }).where('style_id', '=', styleId).execute();
+		// fit notes first: a done note pinned to one version and resolved by another would otherwise meet
+		// the resolved one's SET NULL before its own cascade, which its check refuses
+		await tx.deleteFrom('fit_notes').where('piece_id', 'in', pieces).execute();
 		await tx.deleteFrom('piece_versions').where('piece_id', 'in', pieces).execute();
 		await tx.deleteFrom('styles').where('id', '=', styleId).where('studio_id', '=', studioId).execute();
 	});
