@@ -10,6 +10,7 @@ import type { Role } from '../../src/lib/roles';
 import { measurementSetDuplicate } from '../../src/lib/server/measurements/sets';
 import { usersByEmail } from '../../src/lib/server/repositories/users';
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
+import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
 
 export interface DemoStudio {
@@ -23,7 +24,7 @@ export interface DemoStudio {
 	clientSetId: string;
 	/** the demo style's first fitting (photos, two notes) */
 	fittingId: string;
-	/** a size run of the demo style (stored for the pages; not put on the queue) */
+	/** a size run of the demo style over three chart sizes (made at once for the pages, not put on the queue) */
 	sizeRunId: string;
 	users: { email: string; name: string; role: Role }[];
 	password: string;
@@ -55,8 +56,18 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 		let run = await db.selectFrom('size_runs').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirst();
 		if (!run) {
 			const cutter = await usersByEmail(db, demo.users.find((u) => u.role === 'patterncutter')!.email);
-			run = await sizeRunsInsert(db, { studioId, styleId: style.id, createdBy: cutter!.id, sizes: [{ measurementSetId: sets[0].id, name: 'first set' }] });
+			const chart = await db
+				.selectFrom('measurement_sets')
+				.select(['id', 'name'])
+				.where('studio_id', '=', studioId)
+				.where('chart_key', 'in', ['astm-d5585/curvy/8', 'astm-d5585/curvy/12', 'astm-d5585/curvy/14'])
+				.execute();
+			const sizes = chart.length > 0 ? chart.map((c) => ({ measurementSetId: c.id, name: c.name })) : [{ measurementSetId: sets[0].id, name: 'first set' }];
+			run = await sizeRunsInsert(db, { studioId, styleId: style.id, createdBy: cutter!.id, sizes });
 		}
+		// made here, not through the queue, so that the run's page shows its nest and table to every check
+		const stored = await db.selectFrom('size_runs').select('status').where('id', '=', run.id).executeTakeFirstOrThrow();
+		if (stored.status === 'queued') await sizeRunExecute(db, run.id);
 		const fitting = await db.selectFrom('fittings').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirstOrThrow();
 		return {
 			studioId,

@@ -48,7 +48,8 @@ export interface SizeResult {
 
 const deg = (rad: number) => (rad * 180) / Math.PI;
 
-function metricsOf(p: Piece): NonNullable<SizePieceResult['metrics']> {
+/** A piece's metrics as a size run reports them (also the base size's, for differences). */
+export function sizePieceMetrics(p: Piece): NonNullable<SizePieceResult['metrics']> {
 	const m = pieceMetrics(p);
 	return {
 		areaMm2: m.areaMm2,
@@ -66,7 +67,7 @@ export function sizeResult(style: StyleRecipe, mm: MeasurementsMm, options: Size
 		const head = p.versions[p.versions.length - 1];
 		const made = replay.versions.get(p.id)?.get(head?.number ?? 0);
 		if (made) heads.set(p.id, made.piece);
-		return { pieceId: p.id, name: p.name, made: Boolean(made), versionNumber: head?.number ?? 0, metrics: made ? metricsOf(made.piece) : null };
+		return { pieceId: p.id, name: p.name, made: Boolean(made), versionNumber: head?.number ?? 0, metrics: made ? sizePieceMetrics(made.piece) : null };
 	});
 	const checks: SizeCheck[] = [];
 	for (const p of style.pieces) {

@@ -1,5 +1,7 @@
 import { setImmediate as nextTurn } from 'node:timers/promises';
 import { sizeResult } from '$lib/pattern/grading/size-result';
+import type { MeasurementsMm } from '$lib/pattern/measurements';
+import type { Piece } from '$lib/pattern/piece-schema';
 import { styleRecipeStepCount } from '$lib/pattern/grading/style-recipe';
 import type { DbOrTx } from '../db';
 import { measurementSetsInStudio } from '../repositories/measurement-sets';
@@ -18,6 +20,10 @@ export interface SizeRunSizeResult {
 	failures: unknown[];
 	checks: { passed: number; failed: number; list: unknown[] };
 	error?: string;
+	/** The measurements the size was made from (mm), as they were when it was made. */
+	measurementsMm?: MeasurementsMm;
+	/** Each piece's head as made on this size, by piece id: kept for the nest view, not sent by the API. */
+	heads?: Record<string, Piece>;
 }
 
 /**
@@ -49,7 +55,8 @@ export async function sizeRunExecute(db: DbOrTx, runId: string): Promise<void> {
 			result = { ...size, status: 'failed', stepsDone: 0, pieces: [], failures: [], checks: { passed: 0, failed: 0, list: [] }, error: 'The measurement set was deleted before its size was made.' };
 		} else {
 			try {
-				const r = sizeResult(style, measurementsMmOf(set.values));
+				const mm = measurementsMmOf(set.values);
+				const r = sizeResult(style, mm);
 				const failed = r.checks.filter((c) => !c.passed).length;
 				result = {
 					measurementSetId: size.measurementSetId,
@@ -58,7 +65,9 @@ export async function sizeRunExecute(db: DbOrTx, runId: string): Promise<void> {
 					stepsDone: r.stepsDone,
 					pieces: [...r.pieces],
 					failures: [...r.failures],
-					checks: { passed: r.checks.length - failed, failed, list: [...r.checks] }
+					checks: { passed: r.checks.length - failed, failed, list: [...r.checks] },
+					measurementsMm: mm,
+					heads: Object.fromEntries(r.heads)
 				};
 			} catch (e) {
 				result = { ...size, status: 'failed', stepsDone: 0, pieces: [], failures: [], checks: { passed: 0, failed: 0, list: [] }, error: `This size could not be made: ${(e as Error).message}` };

@@ -59,7 +59,12 @@ export function sizeRunView(run: SizeRunRow) {
 		progress: { stepsDone: run.stepsDone, stepsTotal: run.stepsTotal },
 		sizes: run.sizes.map((s) => {
 			const r = results.find((x) => x.measurementSetId === s.measurementSetId);
-			return r ?? { measurementSetId: s.measurementSetId, name: s.name, status: run.status === 'cancelled' ? 'cancelled' : 'pending' };
+			if (r) {
+				// the outlines are kept for the run's page (nest view), not sent with every read of the run
+				const { heads: _heads, ...rest } = r;
+				return rest;
+			}
+			return { measurementSetId: s.measurementSetId, name: s.name, status: run.status === 'cancelled' ? 'cancelled' : 'pending' };
 		}),
 		error: run.error,
 		createdAt: run.createdAt,

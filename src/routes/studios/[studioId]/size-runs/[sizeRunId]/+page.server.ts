@@ -4,10 +4,14 @@ import { DRAFT_READERS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { sizeRunsById } from '$lib/server/repositories/size-runs';
 import { stylesInStudio } from '$lib/server/repositories/styles';
+import { runPageBase, runPageNest, runPagePieces } from '$lib/server/size-runs/run-page';
 import { sizeRunView } from '$lib/server/size-runs/service';
 import type { PageServerLoad } from './$types';
 
-/** One size run: its progress (the page follows the job) and what each size gave. */
+/**
+ * One size run: its progress (the page follows the job), what each size gave, the base size's pieces
+ * measured here for the differences, and the chosen piece (`?piece=`) as every size made it, for the nest.
+ */
 export const load: PageServerLoad = async (event) => {
 	const { studioId } = await requireRole(event, DRAFT_READERS);
 	const id = z.uuid().safeParse(event.params.sizeRunId);
@@ -15,5 +19,14 @@ export const load: PageServerLoad = async (event) => {
 	if (!run) error(404, { message: 'No such size run.', code: 'not_found' });
 	const style = await stylesInStudio(db(), studioId, run.styleId);
 	if (!style) error(404, { message: 'No such size run.', code: 'not_found' });
-	return { style: { id: style.id, name: style.name }, sizeRun: JSON.parse(JSON.stringify(sizeRunView(run))) as ReturnType<typeof sizeRunView> };
+	const pieces = await runPagePieces(db(), run);
+	const asked = z.uuid().safeParse(event.url.searchParams.get('piece'));
+	const pieceId = (asked.success ? pieces.find((p) => p.pieceId === asked.data) : pieces[0])?.pieceId ?? null;
+	return {
+		style: { id: style.id, name: style.name },
+		sizeRun: JSON.parse(JSON.stringify(sizeRunView(run))) as ReturnType<typeof sizeRunView>,
+		pieces,
+		base: await runPageBase(db(), run, style.measurementSetId, pieces),
+		nest: pieceId ? await runPageNest(db(), run, pieceId) : null
+	};
 };
