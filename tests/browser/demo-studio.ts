@@ -12,6 +12,7 @@ import { usersByEmail } from '../../src/lib/server/repositories/users';
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
+import { DEMO_STYLE } from '../../src/lib/pattern/fixtures/demo-path';
 
 export interface DemoStudio {
 	studioId: string;
@@ -37,7 +38,8 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 	const db = dbCreate(databaseUrl, 2);
 	try {
 		const { studioId, sketchStudioId } = await demoStudioSeed(db);
-		const style = await db.selectFrom('styles').select('id').where('studio_id', '=', studioId).orderBy('created_at').executeTakeFirstOrThrow();
+		// the demo style by its code: the test database outlives runs, and other styles of the studio may be older
+		const style = await db.selectFrom('styles').select('id').where('studio_id', '=', studioId).where('code', '=', DEMO_STYLE.code).orderBy('created_at').executeTakeFirstOrThrow();
 		const signed = await db
 			.selectFrom('piece_versions')
 			.innerJoin('pieces', 'pieces.id', 'piece_versions.piece_id')
