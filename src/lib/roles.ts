@@ -70,6 +70,10 @@ export interface Can {
 	readonly comment: boolean;
 	/** Start and cancel size runs (a style made again on other measurement sets). */
 	readonly runSizes: boolean;
+	/** Keep a done size run as a size set of the style. */
+	readonly keepSizeSets: boolean;
+	/** Sign sizes of a size set off. */
+	readonly signOffSizes: boolean;
 }
 
 /** The roles in their usual order, each with its label, for choosers. */

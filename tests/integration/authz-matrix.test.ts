@@ -124,7 +124,12 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/api/studios/[studioId]/size-runs/[sizeRunId]': {
 		GET: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 },
 		DELETE: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]', ok: 404 }
-	}
+	},
+	// size sets: pattern cutters and owners keep a run, the signers sign sizes off, everyone reads (handlers filter)
+	'/api/studios/[studioId]/size-runs/[sizeRunId]/keep': { POST: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]/keep', json: { name: '' }, ok: 400 } },
+	'/api/studios/[studioId]/styles/[styleId]/size-sets': { GET: { path: '/api/studios/[studioId]/styles/[styleId]/size-sets', ok: 404 } },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]': { GET: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]', ok: 404 } },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off': { POST: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off', json: {}, ok: 400 } }
 };
 
 /** Route ids of the app, from the files under src/routes (as SvelteKit derives them). */

@@ -39,10 +39,10 @@ describe('what a member may do, decided once from the authorization table', () =
 	// fitting may pin a note on it; only the pattern cutter or the owner marks a note done.
 	it('gives each role what the product says it does', () => {
 		const expected: Record<Role, Can> = {
-			owner: { edit: true, propose: true, signOff: true, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: true, invite: true, manageStudio: true, manageBilling: true, recordFittings: true, pinNotes: true, resolveNotes: true, comment: true, runSizes: true },
-			patterncutter: { edit: true, propose: true, signOff: false, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: false, pinNotes: true, resolveNotes: true, comment: true, runSizes: true },
-			designer: { edit: false, propose: false, signOff: true, seeDrafts: true, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: false, pinNotes: true, resolveNotes: false, comment: true, runSizes: false },
-			sampleroom: { edit: false, propose: false, signOff: false, seeDrafts: false, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: true, pinNotes: true, resolveNotes: false, comment: false, runSizes: false }
+			owner: { edit: true, propose: true, signOff: true, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: true, invite: true, manageStudio: true, manageBilling: true, recordFittings: true, pinNotes: true, resolveNotes: true, comment: true, runSizes: true, keepSizeSets: true, signOffSizes: true },
+			patterncutter: { edit: true, propose: true, signOff: false, seeDrafts: true, createStyles: true, editMeasurements: true, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: false, pinNotes: true, resolveNotes: true, comment: true, runSizes: true, keepSizeSets: true, signOffSizes: false },
+			designer: { edit: false, propose: false, signOff: true, seeDrafts: true, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: false, pinNotes: true, resolveNotes: false, comment: true, runSizes: false, keepSizeSets: false, signOffSizes: true },
+			sampleroom: { edit: false, propose: false, signOff: false, seeDrafts: false, createStyles: false, editMeasurements: false, manageMembers: false, invite: false, manageStudio: false, manageBilling: false, recordFittings: true, pinNotes: true, resolveNotes: false, comment: false, runSizes: false, keepSizeSets: false, signOffSizes: false }
 		};
 		for (const role of ROLES) expect(roleCan(role)).toEqual(expected[role]);
 	});

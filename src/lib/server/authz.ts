@@ -42,6 +42,8 @@ export const NOTE_WRITERS = ['owner', 'patterncutter', 'designer', 'sampleroom']
 export const NOTE_RESOLVERS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
 /** Start and cancel a size run (a style's recipe replayed on other measurement sets): whoever makes the versions. */
 export const SIZE_RUNNERS = ['owner', 'patterncutter'] as const satisfies readonly Role[];
+/** Sign sizes of a size set off: the signers of versions (a pattern cutter keeps a run, a designer or owner signs its sizes off). */
+export const SIZE_SET_SIGNERS = SIGNERS;
 /** Write in a version's comment thread. */
 export const COMMENTERS = ['owner', 'patterncutter', 'designer'] as const satisfies readonly Role[];
 
@@ -115,6 +117,12 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	// size runs: started and cancelled by pattern cutters and owners, read by whoever sees drafts
 	'/api/studios/[studioId]/styles/[styleId]/size-runs': { GET: DRAFT_READERS, POST: SIZE_RUNNERS },
 	'/api/studios/[studioId]/size-runs/[sizeRunId]': { GET: DRAFT_READERS, DELETE: SIZE_RUNNERS },
+	// size sets (a run's results kept): kept by whoever starts runs, signed off per size by the signers;
+	// the sample room sees signed-off sizes only (handlers filter)
+	'/api/studios/[studioId]/size-runs/[sizeRunId]/keep': { POST: SIZE_RUNNERS },
+	'/api/studios/[studioId]/styles/[styleId]/size-sets': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]': { GET: ALL_ROLES },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off': { POST: SIZE_SET_SIGNERS },
 	'/api/studios/[studioId]/pieces/[pieceId]': { GET: ALL_ROLES },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions': { GET: ALL_ROLES, POST: EDITORS },
 	'/api/studios/[studioId]/pieces/[pieceId]/versions/[versionId]': { GET: ALL_ROLES },
@@ -162,7 +170,9 @@ export function roleCan(role: Role): Can {
 		pinNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes`, 'POST'),
 		resolveNotes: roleMay(role, `${studio}/fittings/[fittingId]/notes/[noteId]/done`, 'POST'),
 		comment: roleMay(role, `${studio}/pieces/[pieceId]/versions/[versionId]/comments`, 'POST'),
-		runSizes: roleMay(role, `${studio}/styles/[styleId]/size-runs`, 'POST')
+		runSizes: roleMay(role, `${studio}/styles/[styleId]/size-runs`, 'POST'),
+		keepSizeSets: roleMay(role, `${studio}/size-runs/[sizeRunId]/keep`, 'POST'),
+		signOffSizes: roleMay(role, `${studio}/size-sets/[sizeSetId]/sign-off`, 'POST')
 	};
 }
 

@@ -1,6 +1,7 @@
 import type { ColumnType, Generated } from 'kysely';
 import type { Role } from '../../roles';
 import type { FittingsDatabase } from './schema-fittings';
+import type { SizeSetsDatabase } from './schema-size-sets';
 
 /** Database tables as Kysely sees them. Keep in step with `migrations/`. */
 export type { Role };
@@ -239,3 +240,7 @@ export interface SizeRunsTable {
 export interface Database {
 	size_runs: SizeRunsTable;
 }
+
+/** Size sets (migration 2026-12-04-0080), in their own file. */
+export type { SizeSetSizeState } from './schema-size-sets';
+export interface Database extends SizeSetsDatabase {}
