@@ -129,7 +129,10 @@ const SAMPLES: Record<string, Partial<Record<Method, Sample>>> = {
 	'/api/studios/[studioId]/size-runs/[sizeRunId]/keep': { POST: { path: '/api/studios/[studioId]/size-runs/[sizeRunId]/keep', json: { name: '' }, ok: 400 } },
 	'/api/studios/[studioId]/styles/[styleId]/size-sets': { GET: { path: '/api/studios/[studioId]/styles/[styleId]/size-sets', ok: 404 } },
 	'/api/studios/[studioId]/size-sets/[sizeSetId]': { GET: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]', ok: 404 } },
-	'/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off': { POST: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off', json: {}, ok: 400 } }
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off': { POST: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/sign-off', json: {}, ok: 400 } },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/export.svg': { GET: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/export.svg', ok: 404 } },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/export.pdf': { GET: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/export.pdf', ok: 404 } },
+	'/api/studios/[studioId]/size-sets/[sizeSetId]/export.dxf': { GET: { path: '/api/studios/[studioId]/size-sets/[sizeSetId]/export.dxf', ok: 404 } }
 };
 
 /** Route ids of the app, from the files under src/routes (as SvelteKit derives them). */

@@ -77,6 +77,9 @@ beforeAll(async () => {
 		pieceId: piece.id,
 		versionId: piece.head_version_id!,
 		seamPairId: pair?.id ?? crypto.randomUUID(),
+		// no such run or size set: a usable body would be answered 404, never a success
+		sizeRunId: crypto.randomUUID(),
+		sizeSetId: crypto.randomUUID(),
 		setId: set.id,
 		userId: cutter.id,
 		token: 'not-a-real-token-0123456789abcdef'

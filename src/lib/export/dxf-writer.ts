@@ -28,6 +28,8 @@ export const DXF_FLATTEN_TOLERANCE_MM = 0.02;
 
 export interface DxfPieceInput {
 	readonly piece: Piece;
+	/** The block's name when it is not the piece's own (the same piece in several sizes); made unique either way. */
+	readonly blockName?: string;
 	readonly styleName: string;
 	readonly sizeLabel: string;
 	readonly quantity: number;
@@ -69,8 +71,8 @@ export function styleDxf(pieces: readonly DxfPieceInput[]): string {
 		2000,
 		PIECE_GAP_MM
 	);
-	pieces.forEach(({ piece, styleName, sizeLabel, quantity, category }, i) => {
-		const name = dxfBlockName(piece.name, taken);
+	pieces.forEach(({ piece, blockName, styleName, sizeLabel, quantity, category }, i) => {
+		const name = dxfBlockName(blockName ?? piece.name, taken);
 		const block = dxf.addBlock(name);
 		const closed = (pts: Vec[], layerName: string) =>
 			block.addLWPolyline(
