@@ -12,7 +12,11 @@ import { usersByEmail } from '../../src/lib/server/repositories/users';
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
+<<<<<<< HEAD
 import { DEMO_STYLE } from '../../src/lib/pattern/fixtures/demo-path';
+=======
+import { demoSizeSet } from './demo-size-set';
+>>>>>>> 30c1b61 (Size sets on screen: a done run's page has Keep as size set (pattern cutters and owners; once kept, a link to the set); the style page lists its size sets (how many sizes are signed off); a size set's page shows each size's sign-off (who, when), its checks and its pieces, each linked to the version it was graded from, with sign-off buttons per size and for all (the signers; failing checks acknowledged first) and the PDF, SVG and DXF exports; the page is in the authorization table, the accessibility check of every role and the integration tests)
 
 export interface DemoStudio {
 	studioId: string;
@@ -27,6 +31,8 @@ export interface DemoStudio {
 	fittingId: string;
 	/** a size run of the demo style over three chart sizes (made at once for the pages, not put on the queue) */
 	sizeRunId: string;
+	/** a size set of the demo style (two chart sizes, the first signed off: every role may open it) */
+	sizeSetId: string;
 	users: { email: string; name: string; role: Role }[];
 	password: string;
 	/** the second demo studio, on the free Sketch plan, and its people (same password) */
@@ -71,10 +77,12 @@ export async function demoStudio(databaseUrl: string): Promise<DemoStudio> {
 		const stored = await db.selectFrom('size_runs').select('status').where('id', '=', run.id).executeTakeFirstOrThrow();
 		if (stored.status === 'queued') await sizeRunExecute(db, run.id);
 		const fitting = await db.selectFrom('fittings').select('id').where('style_id', '=', style.id).orderBy('created_at').executeTakeFirstOrThrow();
+		const sizeSetId = await demoSizeSet(db, studioId, style.id);
 		return {
 			studioId,
 			fittingId: fitting.id,
 			sizeRunId: run.id,
+			sizeSetId,
 			styleId: style.id,
 			signedOff: signed,
 			setIds: [sets[0].id, sets[1].id],

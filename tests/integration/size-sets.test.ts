@@ -268,3 +268,56 @@ describe('refusals when keeping', () => {
 		expect(e.message).toMatch(/3 sizes/);
 	});
 });
+
+describe('the size set pages', () => {
+	let setId: string;
+	let names: string[];
+	let runId: string;
+
+	beforeAll(async () => {
+		runId = await runMade(['astm-d5585/curvy/6', 'astm-d5585/curvy/10']);
+		const r = await keep(c.patterncutter, runId, { name: 'Pages check' });
+		const set = ((await r.json()) as { sizeSet: SetOut }).sizeSet;
+		setId = set.id;
+		names = set.sizes.map((s) => s.name);
+		expect((await signOff(c.designer, setId, { sizes: [set.sizes[0].id] })).status).toBe(200);
+	}, 60_000);
+
+	const html = async (client: Client, path: string) => {
+		const r = await client.request('GET', path);
+		expect(r.status, path).toBe(200);
+		return r.text();
+	};
+
+	it('the style page lists the set with how many sizes are signed off', async () => {
+		const page = await html(c.designer, `/studios/${studioId}/styles/${styleId}`);
+		expect(page).toContain(`href="/studios/${studioId}/size-sets/${setId}"`);
+		expect(page).toContain('2 sizes · 1 signed off');
+	});
+
+	it('a designer sees every size, the sign-off buttons of the drafts and the export links', async () => {
+		const page = await html(c.designer, `/studios/${studioId}/size-sets/${setId}`);
+		for (const n of names) expect(page).toContain(n);
+		expect(page).toContain(`Sign off ${names[1]}`);
+		expect(page).not.toContain(`Sign off ${names[0]}`);
+		expect(page).toContain('Sign off all 1 size');
+		for (const f of ['export.pdf?paper=a4', 'export.svg', 'export.dxf']) expect(page).toContain(`/api/studios/${studioId}/size-sets/${setId}/${f}`);
+	});
+
+	it('a pattern cutter sees the sizes without sign-off buttons; the sample room sees only the signed-off size', async () => {
+		const cutter = await html(c.patterncutter, `/studios/${studioId}/size-sets/${setId}`);
+		expect(cutter).not.toContain('Sign off');
+		const room = await html(c.sampleroom, `/studios/${studioId}/size-sets/${setId}`);
+		expect(room).toContain(names[0]);
+		expect(room).not.toContain(names[1]);
+	});
+
+	it('a done run’s page offers Keep as size set to pattern cutters, and links the set once kept', async () => {
+		const fresh = await runMade(['astm-d5585/curvy/10']);
+		expect(await html(c.patterncutter, `/studios/${studioId}/size-runs/${fresh}`)).toContain('Keep as size set');
+		expect(await html(c.designer, `/studios/${studioId}/size-runs/${fresh}`)).not.toContain('Keep as size set');
+		const kept = await html(c.designer, `/studios/${studioId}/size-runs/${runId}`);
+		expect(kept).toContain(`href="/studios/${studioId}/size-sets/${setId}"`);
+		expect(kept).not.toContain('Keep as size set');
+	});
+});

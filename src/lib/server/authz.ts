@@ -72,6 +72,8 @@ export const AUTHZ: Record<string, Partial<Record<Method, Rule>>> = {
 	'/studios/[studioId]/fittings/[fittingId]': { GET: ALL_ROLES },
 	'/studios/[studioId]/styles/[styleId]/size-runs': { GET: DRAFT_READERS },
 	'/studios/[studioId]/size-runs/[sizeRunId]': { GET: DRAFT_READERS },
+	// a size set: everyone in the studio (the sample room: once a size is signed off; the load filters)
+	'/studios/[studioId]/size-sets/[sizeSetId]': { GET: ALL_ROLES },
 	'/settings/notifications': { GET: 'signed_in', POST: 'signed_in' },
 	'/settings/account': { GET: 'signed_in', POST: 'signed_in' },
 	// measurement sets (editors create, edit and draft; everyone in the studio views)

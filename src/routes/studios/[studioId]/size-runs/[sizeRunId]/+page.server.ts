@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { DRAFT_READERS, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { sizeRunsById } from '$lib/server/repositories/size-runs';
+import { sizeSetsOfRun } from '$lib/server/repositories/size-sets';
 import { stylesInStudio } from '$lib/server/repositories/styles';
 import { runPageBase, runPageNest, runPagePieces } from '$lib/server/size-runs/run-page';
 import { sizeRunView } from '$lib/server/size-runs/service';
@@ -22,7 +23,10 @@ export const load: PageServerLoad = async (event) => {
 	const pieces = await runPagePieces(db(), run);
 	const asked = z.uuid().safeParse(event.url.searchParams.get('piece'));
 	const pieceId = (asked.success ? pieces.find((p) => p.pieceId === asked.data) : pieces[0])?.pieceId ?? null;
+	// the size set this run was kept as, if it was
+	const keptSizeSetId = (await sizeSetsOfRun(db(), run.id))?.id ?? null;
 	return {
+		keptSizeSetId,
 		style: { id: style.id, name: style.name },
 		sizeRun: JSON.parse(JSON.stringify(sizeRunView(run))) as ReturnType<typeof sizeRunView>,
 		pieces,

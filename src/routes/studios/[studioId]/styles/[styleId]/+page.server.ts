@@ -9,6 +9,7 @@ import { fitNoteJson, fittingJson } from '$lib/server/fittings/view';
 import { fitNotesOfPieces } from '$lib/server/repositories/fit-notes';
 import { fittingsOfStyle } from '$lib/server/repositories/fittings';
 import { measurementSetsOfStudio } from '$lib/server/repositories/measurement-sets';
+import { sizeSetsOfStyleShown } from '$lib/server/size-sets/list';
 import { seesOnlySignedOff } from '$lib/server/versions/access';
 import { styleOverview } from '$lib/server/versions/overview';
 import type { PageServerLoad } from './$types';
@@ -41,5 +42,7 @@ export const load: PageServerLoad = async (event) => {
 		openNoteCount: Number(f.openNoteCount)
 	}));
 	const clientSets = (await measurementSetsOfStudio(db(), studioId)).filter((s) => s.kind === 'client').map((s) => ({ id: s.id, name: s.name }));
-	return { style: overview.style, pieces, seamPairs: overview.seamPairs, fittings, clientSets };
+	// the style's size sets (kept size runs); the sample room sees those with a signed-off size
+	const sizeSets = await sizeSetsOfStyleShown(db(), studioId, styleId.data, role);
+	return { style: overview.style, pieces, seamPairs: overview.seamPairs, fittings, clientSets, sizeSets };
 };
