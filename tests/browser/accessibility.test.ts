@@ -41,13 +41,9 @@ function pages(d: DemoStudio): Record<string, string> {
 		'/studios/[studioId]/fittings/[fittingId]': `${s}/fittings/${d.fittingId}`,
 		'/studios/[studioId]/styles/[styleId]/size-runs': `${s}/styles/${d.styleId}/size-runs`,
 		'/studios/[studioId]/size-runs/[sizeRunId]': `${s}/size-runs/${d.sizeRunId}`,
-<<<<<<< HEAD
+		'/studios/[studioId]/size-sets/[sizeSetId]': `${s}/size-sets/${d.sizeSetId}`,
 		'/settings/notifications': '/settings/notifications',
 		'/settings/account': '/settings/account'
-=======
-		'/studios/[studioId]/size-sets/[sizeSetId]': `${s}/size-sets/${d.sizeSetId}`,
-		'/settings/notifications': '/settings/notifications'
->>>>>>> 30c1b61 (Size sets on screen: a done run's page has Keep as size set (pattern cutters and owners; once kept, a link to the set); the style page lists its size sets (how many sizes are signed off); a size set's page shows each size's sign-off (who, when), its checks and its pieces, each linked to the version it was graded from, with sign-off buttons per size and for all (the signers; failing checks acknowledged first) and the PDF, SVG and DXF exports; the page is in the authorization table, the accessibility check of every role and the integration tests)
 	};
 }
 

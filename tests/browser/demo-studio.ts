@@ -12,11 +12,8 @@ import { usersByEmail } from '../../src/lib/server/repositories/users';
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
-<<<<<<< HEAD
 import { DEMO_STYLE } from '../../src/lib/pattern/fixtures/demo-path';
-=======
 import { demoSizeSet } from './demo-size-set';
->>>>>>> 30c1b61 (Size sets on screen: a done run's page has Keep as size set (pattern cutters and owners; once kept, a link to the set); the style page lists its size sets (how many sizes are signed off); a size set's page shows each size's sign-off (who, when), its checks and its pieces, each linked to the version it was graded from, with sign-off buttons per size and for all (the signers; failing checks acknowledged first) and the PDF, SVG and DXF exports; the page is in the authorization table, the accessibility check of every role and the integration tests)
 
 export interface DemoStudio {
 	studioId: string;
