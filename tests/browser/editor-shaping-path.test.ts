@@ -82,6 +82,10 @@ describe('the shaping path on the demo style, as a new user', () => {
 		const point = lower.sort((a, b) => b.y - a.y)[0] ?? bottom;
 		// the band chosen in the list of pieces: the piece's own moves are offered
 		await page.locator('section[aria-labelledby="pieces-title"] button', { hasText: 'Underbust band' }).click();
+		// the seams between the new pieces are labelled with the names given when saving; the field is empty again
+		await expect.poll(() => page.locator('[data-testid="piece-seam-pairs"]').textContent()).toContain('style seam 1 (Upper centre front)');
+		expect(await page.locator('[data-testid="piece-seam-pairs"]').textContent()).not.toContain('(a))');
+		expect(await page.inputValue('#save-message')).toBe('');
 		await offered.getByRole('button', { name: /Reshape/ }).click();
 		await dragOnPiece(page, band, point, { x: point.x, y: point.y + 6 }, 8);
 		await expect.poll(() => page.locator('[data-testid="reshape-moved"]').textContent()).toContain('1 point moved');

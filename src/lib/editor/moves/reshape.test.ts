@@ -28,6 +28,10 @@ describe('reshape by hand', () => {
 		const pv = s.preview!;
 		expect(pv.piece).not.toBeNull();
 		expect(pv.readouts.some((r) => r.tone === 'warn')).toBe(true);
+		// each changed seam is named in the readouts as the declaration form (and the server) names it
+		const seamLabels = reshapeRun(s.ctx, st)!.changes.filter((c) => c.subject === 'seam').map((c) => c.label);
+		expect(seamLabels.length).toBeGreaterThan(0);
+		expect(pv.readouts.filter((r) => r.tone === 'warn').map((r) => r.label)).toEqual(seamLabels);
 		// the ledger shows the change as it would be declared
 		expect(pv.ledger.length).toBeGreaterThan(0);
 	});

@@ -2,7 +2,6 @@ import { chainSnapPoints, pointSnap, type SnapPointCandidate } from '$lib/geomet
 import { vecDistance, type Vec } from '$lib/geometry';
 import type { LedgerEntry } from '$lib/pattern/ledger';
 import { pieceMetrics } from '$lib/pattern/metrics';
-import { pieceSeams } from '$lib/pattern/piece-seams';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { reshapeChanges, reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
 import { editorApply } from '../ops';
@@ -194,10 +193,9 @@ function reshapePreview(ctx: MoveContext, st: ReshapeState): MovePreview | null 
 		{ label: 'Area outside the darts', value: `${areaText(ma.areaMm2, u)} (${ma.areaMm2 >= mb.areaMm2 ? '+' : '−'}${areaText(Math.abs(ma.areaMm2 - mb.areaMm2), u)})` },
 		{ label: 'Seam length, darts folded out', value: `${lengthReadoutText(ma.seamLengthMm, u)} (${lengthDifferenceText(ma.seamLengthMm - mb.seamLengthMm, u)})` }
 	];
-	const before = pieceSeams(run.piece);
-	for (const s of pieceSeams(run.r.piece)) {
-		const b = before.find((x) => x.name === s.name);
-		if (b && Math.abs(b.lengthMm - s.lengthMm) > 0.05) readouts.push({ label: s.name, value: `${lengthReadoutText(s.lengthMm, u)} (${lengthDifferenceText(s.lengthMm - b.lengthMm, u)})`, tone: 'warn' });
+	// each seam the reshape changes, named as the declaration names it (and as the server's check does)
+	for (const c of run.changes) {
+		if (c.subject === 'seam' && c.after !== null) readouts.push({ label: c.label, value: `${lengthReadoutText(c.after, u)} (${lengthDifferenceText(c.difference, u)})`, tone: 'warn' });
 	}
 	// the ledger shows the entries the change would be declared with (as suggested; the form may change them)
 	const declared = reshapeDeclaredEntries(run.changes);

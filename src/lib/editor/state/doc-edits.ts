@@ -123,3 +123,13 @@ export function docPieceRekeyed(doc: EditorDoc, oldKey: string, next: PieceEdit)
 	}
 	return d;
 }
+
+/**
+ * New pieces named before their first save: the pending seams between them were labelled with the
+ * provisional names ("style seam 1 (… (a))"); each label takes the name given instead.
+ */
+export function docPendingSeamsRenamed(doc: EditorDoc, renames: ReadonlyMap<string, string>): EditorDoc {
+	if (!doc.pendingSeams?.length || renames.size === 0) return doc;
+	const relabel = (label: string) => [...renames].reduce((l, [from, to]) => (from && from !== to ? l.split(`(${from})`).join(`(${to})`) : l), label);
+	return { ...doc, pendingSeams: doc.pendingSeams.map((sp) => ({ ...sp, label: relabel(sp.label).slice(0, 120) })) };
+}

@@ -4,7 +4,7 @@ import { changeBodyBuild, changeNewPieces, changeSourceNames, namingProblem, pie
 import { docReplacePiece, type PieceEdit, type SeamEdit } from '../doc';
 import { editorApply } from '../ops';
 import type { StepRecord } from '../doc';
-import { declaredOf, docPieceRekeyed, recipeOf } from './doc-edits';
+import { declaredOf, docPendingSeamsRenamed, docPieceRekeyed, recipeOf } from './doc-edits';
 import type { DocumentStore } from './document.svelte';
 
 export interface SaveReport {
@@ -117,11 +117,14 @@ export class SaveSession {
 		const problem = namingProblem(entries, changeSourceNames(docs.doc));
 		if (problem) return void (this.namingError = problem);
 		let doc = docs.doc;
+		const renames = new Map<string, string>();
 		for (const e of entries) {
 			const name = e.name.trim();
+			const before = doc.pieces.find((q) => q.key === e.key)?.name;
+			if (before) renames.set(before, name);
 			doc = docReplacePiece(doc, e.key, (q) => ({ ...q, name, cut: e.cut, base: q.base && pieceRenamed(q.base, name, e.cut), geometry: pieceRenamed(q.geometry, name, e.cut) }));
 		}
-		docs.replace(doc);
+		docs.replace(docPendingSeamsRenamed(doc, renames));
 		this.naming = null;
 		this.namingError = null;
 		this.namingDone = true;

@@ -4,7 +4,7 @@ import { rectanglePiece } from '$lib/pattern/panels/fixtures/simple-pieces';
 import type { EditorDoc, PieceEdit } from '../doc';
 import { DEFAULT_PX_PER_MM, CALIBRATION_KEY, UNIT_KEY } from '../view';
 import { Camera } from './camera.svelte';
-import { docLayAsDrafted, docPieceMoved, docStepApply } from './doc-edits';
+import { docLayAsDrafted, docPendingSeamsRenamed, docPieceMoved, docStepApply } from './doc-edits';
 import { DocumentStore } from './document.svelte';
 import { historyEmpty, historyPush, historyRedo, historyUndo } from './history';
 import { Selection } from './selection.svelte';
@@ -101,6 +101,14 @@ describe('the document store', () => {
 		d.push(r.doc, r.label);
 		expect(d.dirty.map((p) => p.key)).toEqual(['front']);
 		expect(docStepApply(d.doc, 'back', { op: 'fold', params: { from: { x: 0, y: 0 }, to: { x: 0, y: 300 } } })).toEqual({ ok: false, error: 'This piece cannot be changed here.' });
+	});
+	it('relabels the pending seams of new pieces with the names given to them before the first save', () => {
+		const edge = { segments: [] };
+		const seam = (label: string) => ({ label, a: { pieceKey: 'n0', edge }, b: { pieceKey: 'n1', edge }, allowedEaseMm: 0, toleranceMm: 1.5 });
+		const doc: EditorDoc = { pieces: [], pendingSeams: [seam('style seam 1 (Side panel (a))'), seam('style seam 2 (Centre panel (a))')] };
+		const named = docPendingSeamsRenamed(doc, new Map([['Side panel (a)', 'Upper side front'], ['Centre panel (a)', 'Upper centre front']]));
+		expect(named.pendingSeams!.map((s) => s.label)).toEqual(['style seam 1 (Upper side front)', 'style seam 2 (Upper centre front)']);
+		expect(docPendingSeamsRenamed(doc, new Map())).toBe(doc);
 	});
 	it('lays pieces as drafted at the first one’s offset', () => {
 		const r = docLayAsDrafted(docOf(edit('a', undefined, 10), edit('b', undefined, 300)), ['a', 'b']);
