@@ -136,10 +136,22 @@ function outlineSame(a: Piece, b: Piece): boolean {
 }
 
 /**
- * Applies one single-piece step: the same function in the browser (preview) and on the server (replay).
- * A step that changes the stitching line drops a seam allowance added before it: allowance comes last,
- * and is added again.
+ * A seam allowance added before a step that changed the stitching line: a hand reshape moves points and
+ * handles of the same segments, so the allowance follows the line with the same widths and corners (a
+ * width is given per segment); any other step may move a dart or add stretches (a pivot, pleats), after
+ * which the widths no longer name the same seams, so it is removed and added again last.
  */
+function allowanceAfterStep(before: Piece, op: string, r: Extract<OperationResult, { ok: true }>): OperationResult {
+	const a = before.seamAllowance!;
+	const bare = { ...r.piece, seamAllowance: null };
+	if (op === 'reshape' && before.outline.segments.length === r.piece.outline.segments.length) {
+		const again = allowanceStep(bare, { defaultWidthMm: a.defaultWidthMm, widthsMm: a.widthsMm, corners: a.corners, defaultCorner: a.defaultCorner });
+		if (again.ok) return { ...r, piece: again.piece, report: { ...r.report, notes: [...r.report.notes, 'The seam allowance follows the new stitching line, with the same widths and corners.'] } };
+	}
+	return { ...r, piece: bare, report: { ...r.report, notes: [...r.report.notes, 'The seam allowance was removed because the seams of the stitching line changed; add it again last.'] } };
+}
+
+/** Applies one single-piece step: the same function in the browser (preview) and on the server (replay). */
 export function recipeStepApply(piece: Piece, step: { readonly op: string; readonly params?: unknown }): OperationResult {
 	const def = stepDef(step.op);
 	if (!def) return refuse('invalid_params', `"${step.op}" is not an operation this workbench knows.`);
@@ -147,14 +159,8 @@ export function recipeStepApply(piece: Piece, step: { readonly op: string; reado
 	if (def.spansPieces) return refuse('invalid_params', `"${step.op}" works on several pieces; it is saved as a style change, not as a step of one piece.`);
 	const p = parseParams(step.op, def.schema, step.params);
 	if (!p.ok) return refuse('invalid_params', p.message);
-	let r = (def as PieceStepDef).apply(piece, p.params);
-	if (r.ok && step.op !== 'allowance' && r.piece.seamAllowance && !outlineSame(piece, r.piece)) {
-		r = {
-			...r,
-			piece: { ...r.piece, seamAllowance: null },
-			report: { ...r.report, notes: [...r.report.notes, 'The seam allowance was removed because the stitching line changed; add it again last.'] }
-		};
-	}
+	const r = (def as PieceStepDef).apply(piece, p.params);
+	if (r.ok && step.op !== 'allowance' && piece.seamAllowance && !outlineSame(piece, r.piece)) return allowanceAfterStep(piece, step.op, r);
 	return r;
 }
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../fixtures/front-bodice-block';
+import { rectanglePiece } from '../panels/fixtures/simple-pieces';
 import { recipeStepApply } from './registry';
 
 describe('recipe replay of one piece (registry)', () => {
@@ -15,7 +16,21 @@ describe('recipe replay of one piece (registry)', () => {
 		}
 	});
 
-	it('drops the seam allowance when a later step changes the stitching line, and says so', () => {
+	it('keeps the seam allowance along a hand-reshaped line with the same widths, as if added again after it', () => {
+		const band = recipeStepApply(rectanglePiece('band', 200, 300), { op: 'allowance', params: { defaultWidthMm: 15, widthsMm: { '2': 25 } } });
+		if (!band.ok) throw new Error(band.error.message);
+		const r = recipeStepApply(band.piece, { op: 'reshape', params: { moves: [{ from: { x: 200, y: 300 }, to: { x: 200, y: 310 } }] } });
+		if (!r.ok) throw new Error(r.error.message);
+		expect(r.piece.seamAllowance?.defaultWidthMm).toBe(15);
+		expect(r.piece.seamAllowance?.widthsMm).toEqual({ '2': 25 });
+		expect(r.piece.seamAllowance?.cutLine).not.toEqual(band.piece.seamAllowance?.cutLine);
+		const again = recipeStepApply({ ...r.piece, seamAllowance: null }, { op: 'allowance', params: { defaultWidthMm: 15, widthsMm: { '2': 25 } } });
+		if (!again.ok) throw new Error(again.error.message);
+		expect(r.piece.seamAllowance?.cutLine).toEqual(again.piece.seamAllowance?.cutLine);
+		expect(r.report.notes.join(' ')).toMatch(/follows the new stitching line/);
+	});
+
+	it('drops the seam allowance when a later step changes the seams of the stitching line, and says so', () => {
 		const a = recipeStepApply(block, { op: 'allowance', params: { defaultWidthMm: 10 } });
 		if (!a.ok) throw new Error(a.error.message);
 		const p = recipeStepApply(a.piece, { op: 'pivot', params: { dartId: 'shoulder-dart', to: { x: 235 - 10 / 3, y: 300 } } });
