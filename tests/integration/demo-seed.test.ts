@@ -6,7 +6,10 @@ import { fitNotesOfFitting } from '../../src/lib/server/repositories/fit-notes';
 import { photosKeysOfFitting, photosOfFitting } from '../../src/lib/server/repositories/fitting-photos';
 import { fittingsOfStyle, fittingVersions } from '../../src/lib/server/repositories/fittings';
 import { stylesOfStudio } from '../../src/lib/server/repositories/styles';
+import { DEMO_CLIENT_REF } from '../../src/lib/server/seed/demo-client';
 import { DEMO_FITTING } from '../../src/lib/server/seed/demo-fitting';
+import { measurementSetsOfStudio } from '../../src/lib/server/repositories/measurement-sets';
+import { measurementSetSchema } from '../../src/lib/pattern/measurements/measurement-set';
 import { demoStudioSeed } from '../../src/lib/server/seed/demo-studio';
 import { storageDelete, storageExists, storageGet } from '../../src/lib/server/storage';
 import { storageEnvUse } from './fittings-support';
@@ -27,6 +30,21 @@ describe('demo studio seed', () => {
 		expect(second.studioId).toBe(first.studioId);
 		expect(second.created).toBe(false);
 		expect(await count()).toEqual(before);
+	});
+
+	it('gives the demo studio one client set, by reference code, that the client form would accept; once however often it runs', async () => {
+		const { studioId } = await demoStudioSeed(db);
+		await demoStudioSeed(db);
+		const sets = await measurementSetsOfStudio(db, studioId);
+		const clients = sets.filter((s) => s.clientRef === DEMO_CLIENT_REF);
+		expect(clients).toHaveLength(1);
+		const c = clients[0];
+		expect(c.kind).toBe('client');
+		const chart = sets.find((s) => s.chartKey === 'astm-d5585/curvy/12')!;
+		const bust = (set: typeof c) => set.values.find((v) => v.id === 'bust')!.valueMm;
+		expect(bust(c) - bust(chart)).toBe(25);
+		// the same rules as a set typed into the form (reference code, not a name; no value twice)
+		expect(measurementSetSchema.safeParse({ kind: 'client', clientRef: c.clientRef, name: c.name, measurements: c.values }).success).toBe(true);
 	});
 
 	it('gives the demo studio one user per role', async () => {

@@ -7,6 +7,7 @@ import { membershipsAddIfAbsent, membershipsForUser } from '../repositories/memb
 import { studiosCreate } from '../repositories/studios';
 import { usersByEmail, usersCreate } from '../repositories/users';
 import { demoBillingSeed } from './demo-billing';
+import { demoClientSeed } from './demo-client';
 import { demoFittingSeed } from './demo-fitting';
 import { demoStyleSeed } from './demo-style';
 
@@ -43,6 +44,8 @@ export async function demoStudioSeed(db: Db): Promise<DemoSeedResult> {
 	// The demo style (its own idempotence: skipped when the studio has it). Outside the transaction above:
 	// every version is verified and saved through versionSave, which opens its own transactions.
 	const { patterncutter, designer, sampleroom } = seeded.userIds;
+	// one made-to-measure client (invented), so a size run can take chart sizes and a client together
+	if (patterncutter) await demoClientSeed(db, seeded.studioId, patterncutter);
 	if (patterncutter && designer) {
 		const style = await demoStyleSeed(db, seeded.studioId, { patterncutter, designer });
 		// its first toile fitting: photos (drawn by us) in the object store, two fit notes (own idempotence)
