@@ -7,7 +7,9 @@ import { ASTM_D5585_SOURCE, astmD5585MeasurementSet, astmD5585Sizes, measurement
 import type { CarryResult } from '../panels/carry-types';
 import { pieceGeometryDifference } from '../verify/piece-compare';
 import { seamEdgeLength } from '../verify/seam-measure';
+import { recipeStepApply } from '../recipe/registry';
 import { demoStyleRecipe } from './demo-recipe';
+import type { StyleRecipe } from './style-recipe';
 import { sizeResult } from './size-result';
 
 const recipe = demoStyleRecipe();
@@ -31,6 +33,25 @@ describe('size run of the demo style', () => {
 		expect(r.failures).toEqual([]);
 		expect(r.pieces.every((p) => p.made)).toBe(true);
 		expect(r.checks.filter((c) => !c.passed).map((c) => c.message)).toEqual([]);
+	});
+
+	it('declares a hand reshape again on each size, as that size measures it, so the band let down by hand passes its checks on other sizes', () => {
+		// the fitting's kind of change: a point of the band's lower edge let down 8 mm by hand, declared on the base size
+		const band = recipe.pieces.find((p) => /midriff/i.test(p.name))!;
+		const head = band.versions[band.versions.length - 1];
+		const low = head.geometry.outline.segments.map((g) => g.p0).reduce((a, b) => (b.y > a.y ? b : a));
+		const step = { op: 'reshape', params: { moves: [{ from: low, to: { x: low.x, y: low.y + 8 } }] } };
+		const made = recipeStepApply(head.geometry, step);
+		if (!made.ok) throw new Error(made.error.message);
+		const reshaped: StyleRecipe = {
+			...recipe,
+			pieces: recipe.pieces.map((p) => (p !== band ? p : { ...p, versions: [...p.versions, { id: `${p.id}:v${head.number + 1}`, number: head.number + 1, recipe: [step], geometry: made.piece }] }))
+		};
+		for (const size of ['8', '14'] as const) {
+			const r = sizeResult(reshaped, mmOf('curvy', size));
+			expect(r.failures).toEqual([]);
+			expect(r.checks.filter((c) => !c.passed).map((c) => `${size}: ${c.message}`)).toEqual([]);
+		}
 	});
 
 	it('balances the ledger at every apex and divergence point of every size that is made, both charts', () => {

@@ -3,10 +3,24 @@ import type { LedgerEntry } from '../ledger';
 import type { MeasurementsMm } from '../measurements';
 import type { Piece } from '../piece-schema';
 import { piecesForStep, piecesStepApply, recipeStepApply } from '../recipe/registry';
+import { reshapeChanges, reshapeDeclaredEntries } from '../reshape-declaration';
 import type { StepOutcome } from '../recipe/change';
 import type { RecipeStepData } from '../verify/version-verify';
 import { draftPart, type DraftCache, type DraftOrigin } from './draft-part';
 import { stepWords, type RecipeChange, type RecipePiece, type StyleRecipe } from './style-recipe';
+
+/**
+ * A hand reshape posts nothing to the ledger: on the base size the pattern cutter declared what it
+ * changed (added ease, removed fullness…). Made again on another size, the same moves change that size's
+ * area and seams by other amounts, so the changes are declared again as this size measures them (the
+ * kind the form suggests: ease where cloth is added, fullness where it is taken away); the checks then
+ * hold each size to its own declaration, as the server held the base size.
+ */
+function reshapeDeclaredOnSize(op: string, before: Piece, after: Piece): LedgerEntry[] {
+	if (op !== 'reshape') return [];
+	const declared = reshapeDeclaredEntries(reshapeChanges(before, after));
+	return declared.ok ? [...declared.entries] : [];
+}
 
 /**
  * Grading by replay (pure): the style's blocks drafted again from another measurement set and every step
@@ -83,9 +97,9 @@ export function sizeReplay(style: StyleRecipe, mm: MeasurementsMm, options: Size
 			if (!r.ok) return failAt(piece, version, k + 1, step.op, `${stepWords(step.op)} cannot be made on this size: ${r.error.message}`);
 			const b = recipeStepApply(base, step);
 			if (!b.ok) return failAt(piece, version, k + 1, step.op, `${stepWords(step.op)} no longer replays on the base size itself: ${b.error.message}`);
+			ledger.push(...r.ledgerEntries, ...reshapeDeclaredOnSize(step.op, target, r.piece));
 			base = b.piece;
 			target = r.piece;
-			ledger.push(...r.ledgerEntries);
 			tick();
 		}
 		return { ok: true, value: { base, target, ledger } };
