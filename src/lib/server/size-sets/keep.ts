@@ -14,6 +14,7 @@ import { isUniqueViolation } from '../repositories/users';
 import type { SizeRunSizeResult } from '../size-runs/run';
 import { styleRecipeLoad } from '../size-runs/style-recipe-load';
 import type { SizeSetKeep } from './schemas';
+import { sizeSetName } from '$lib/pattern/grading/size-set-name';
 
 /** How far a size's piece made again may be from the run's stored figures (mm², mm, degrees). */
 const AREA_TOLERANCE_MM2 = 0.01;
@@ -116,7 +117,7 @@ export async function sizeSetKeep(db: Db, a: { studioId: string; run: SizeRunRow
 		const failed = r.checks.filter((c) => !c.passed).length;
 		inserts.push({ measurementSetId: set.id, name: size.name, checks: { passed: r.checks.length - failed, failed, list: r.checks }, versions });
 	}
-	const name = a.body.name ?? `Sizes ${sizes.map((s) => s.name).join(', ')}`.slice(0, 120);
+	const name = a.body.name ?? sizeSetName(sizes.map((s) => s.name));
 	try {
 		return await db.transaction().execute((tx) => sizeSetsInsert(tx, { studioId: a.studioId, styleId: run.styleId, sizeRunId: run.id, name, createdBy: a.userId, sizes: inserts }));
 	} catch (e) {
