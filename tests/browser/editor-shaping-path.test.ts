@@ -73,6 +73,8 @@ describe('the shaping path on the demo style, as a new user', () => {
 		await page.getByRole('button', { name: 'Apply' }).click();
 		await saveFromPanel(page, 'Panel shaping carried into the underbust seam', ['Underbust band', 'Upper centre front', 'Upper middle front', 'Upper side front']);
 		expect(await page.locator('[role="alert"]').count()).toBe(0);
+		// one report for the one change, its checks listed once
+		expect(await page.locator('[data-testid="save-report"]').last().textContent()).toContain('Underbust band v1, Upper centre front v1, Upper middle front v1, Upper side front v1: saved as one change');
 
 		// 3. the new band's lower edge reshaped by hand: a point dragged down, the change declared, saved
 		const band = (await named(page, 'Underbust band'))!;
