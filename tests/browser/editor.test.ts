@@ -143,7 +143,8 @@ describe('pattern editor', () => {
 		await expect.poll(() => page.locator('[data-testid="recipe"]').textContent()).toContain('notch');
 		await saveFromPanel(page, 'Front cut along the style line');
 		expect(await page.locator('[role="alert"]').count()).toBe(0);
-		expect((await page.locator('[data-testid="save-report"]').allTextContents()).join(' ')).toContain('version 2 saved');
+		// one report for the change: the upper part with its notch at version 2, the lower part at version 1
+		expect((await page.locator('[data-testid="save-report"]').allTextContents()).join(' ')).toMatch(/upper \(new\) v2, .*lower \(new\) v1: saved as one change/);
 		const style = await (await page.request.get(`${baseUrl()}/api/studios/${f.studioId}/styles/${f.styleId}`)).json();
 		type Side = { x: number; y: number };
 		type Pair = { label: string; aPieceId: string; bPieceId: string; aEdge: { from: Side; to: Side }; bEdge: { from: Side; to: Side }; toleranceMm: number };
