@@ -144,6 +144,7 @@ pg_start() {
 	pg_settings "$1"
 	ensure_postgres_binaries
 	if pg_running; then
+		pg_wait_ready 300 || die "PostgreSQL ($PG_NAME) runs but does not accept connections (see $PG_DATA/server.log)"
 		say "PostgreSQL ($PG_NAME) already running on 127.0.0.1:$PG_PORT"
 		return 0
 	fi
@@ -162,12 +163,26 @@ pg_start() {
 		if as_pg "$bin/pg_ctl" -D "$PG_DATA" -l "$log" -o "$opts" -w -t 30 start >/dev/null 2>&1; then
 			break
 		fi
+		# After a crash the server replays its WAL before it accepts connections, which takes longer than
+		# pg_ctl waits on a loaded machine: a server still alive is waited for, never killed and started over.
+		pg_wait_ready 300 && break
 		[ "$attempt" = 5 ] && { tail -n 20 "$log" >&2; die "PostgreSQL ($PG_NAME) did not start"; }
 		sleep 1
 		pg_clear_stale
 	done
 	say "PostgreSQL ($PG_NAME) started on 127.0.0.1:$PG_PORT"
 	pg_ensure_database
+}
+
+# Waits up to $1 seconds for the running server of $PG_DATA to accept connections; fails at once if none runs.
+pg_wait_ready() {
+	local bin until; bin="$(pg_bin_dir)"; until=$((SECONDS + $1))
+	while pg_running; do
+		"$bin/pg_isready" -q -h 127.0.0.1 -p "$PG_PORT" && return 0
+		[ "$SECONDS" -ge "$until" ] && return 1
+		sleep 1
+	done
+	return 1
 }
 
 pg_ensure_database() {

@@ -7,15 +7,12 @@ import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
-import { pivot } from '../../src/lib/pattern/operations/pivot';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
 import { appProcessStart, type AppProcess } from './app-process';
 import { memberAdd, sessionClient, studioMake, testDbClose, userMake, type Client } from './helpers';
+import { pivotSaveBody } from './pivot-save';
 
 const HUNG_MS = 10_000;
-/** The shoulder dart of the demo block goes to the side seam and back (trade-primer §1). */
-const SIDE_SEAM = { x: 235 - 10 / 3, y: 300 };
-const SHOULDER = { x: 117, y: 15.75 };
 
 interface Answer {
 	kind: 'read' | 'save';
@@ -65,17 +62,8 @@ function clientLoop(answers: Answer[], phase: () => Answer['phase']) {
 				continue;
 			}
 			const head = (await read.json()).shown as { id: string; geometry: Piece };
-			const dart = head.geometry.darts.find((d) => d.id === 'shoulder-dart')!;
-			const to = dart.leg1End.y < 100 ? SIDE_SEAM : SHOULDER;
-			const r = pivot(head.geometry, { dartId: 'shoulder-dart', to });
-			if (!r.ok) throw new Error(r.error.message);
 			const p2 = phase();
-			const save = await call('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, {
-				baseVersionId: head.id,
-				message: `dart to the ${to === SIDE_SEAM ? 'side seam' : 'shoulder'}`,
-				geometry: r.piece,
-				recipe: [{ op: 'pivot', params: { dartId: 'shoulder-dart', to } }]
-			});
+			const save = await call('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, pivotSaveBody(head));
 			if (typeof save === 'string') {
 				answers.push({ kind: 'save', status: save, phase: p2 });
 				continue;

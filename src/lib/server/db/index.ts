@@ -26,6 +26,11 @@ export function databaseUrl(): string {
  * A pool that survives its database going away: an idle client whose connection drops is removed by
  * pg-pool and reported through the pool's 'error' event, which would end the process when nobody
  * listens. We listen, log once per outage and let the pool open new connections when asked again.
+ * A client in use (a transaction open, a statement under way) reports a dropped connection through
+ * its own 'error' event, which pg-pool listens to only while the client is idle: every client gets a
+ * listener of ours when it connects, or a server crash in the middle of a save would end the process.
+ * The statement under way fails all the same (answered 503), and the pool drops the client when it is
+ * given back (it is no longer queryable).
  */
 export function poolCreate(url: string, max: number, name = 'app'): pg.Pool {
 	const pool = new pg.Pool({
@@ -35,11 +40,13 @@ export function poolCreate(url: string, max: number, name = 'app'): pg.Pool {
 		keepAlive: true
 	});
 	let lastLogMs = 0;
-	pool.on('error', (err) => {
+	const dropped = (err: Error, what: string) => {
 		const now = Date.now();
-		if (now - lastLogMs > 5000) log.warn({ pool: name, err }, 'an idle database connection was dropped');
+		if (now - lastLogMs > 5000) log.warn({ pool: name, err }, what);
 		lastLogMs = now;
-	});
+	};
+	pool.on('error', (err) => dropped(err, 'an idle database connection was dropped'));
+	pool.on('connect', (client) => client.on('error', (err) => dropped(err, 'a database connection in use was dropped')));
 	return pool;
 }
 
