@@ -4,6 +4,7 @@ import type { MeasurementsMm } from '$lib/pattern/measurements';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { styleRecipeStepCount } from '$lib/pattern/grading/style-recipe';
 import type { DbOrTx } from '../db';
+import { log } from '../log';
 import { measurementSetsInStudio } from '../repositories/measurement-sets';
 import { sizeRunsFinish, sizeRunsForWorker, sizeRunsProgress, sizeRunsStart } from '../repositories/size-runs';
 import { measurementsMmOf } from '../measurements/sets';
@@ -78,4 +79,6 @@ export async function sizeRunExecute(db: DbOrTx, runId: string): Promise<void> {
 		if (!(await sizeRunsProgress(db, runId, done, results))) return; // cancelled meanwhile
 	}
 	await sizeRunsFinish(db, runId, 'done', null);
+	// one line per run, from the process whose worker made it (any app process may take a queued run)
+	log.info({ sizeRunId: runId, studioId: run.studioId, sizes: run.sizes.length }, 'size run done');
 }
