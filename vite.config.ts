@@ -9,6 +9,9 @@ export default defineConfig({
 	test: {
 		testTimeout: 30_000,
 		hookTimeout: 60_000,
+		// the global set-ups' teardowns wait for the app servers they started to stop (SIGTERM, SIGKILL
+		// after 10 s): Vitest must not end the run with process.exit before they are done
+		teardownTimeout: 30_000,
 		benchmark: { include: ['src/**/*.bench.ts', 'tests/bench/**/*.bench.ts'] },
 		projects: [
 			{

@@ -7,6 +7,7 @@ import type { TestProject } from 'vitest/node';
 import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart } from '../../scripts/payments-fake/server';
 import { dbCreate } from '../../src/lib/server/db/index';
 import { migrateToLatest } from '../../src/lib/server/db/migrator';
+import { childStop, childTrack } from '../child-processes';
 import { s3FakeStart } from '../s3-fake';
 
 async function freePort(): Promise<number> {
@@ -59,6 +60,7 @@ export default async function setup(project: TestProject) {
 		stdio: ['ignore', 'inherit', 'inherit'],
 		detached: true // its own process group, so teardown ends npx and the server under it
 	});
+	childTrack(mail, true);
 	const app = spawn('node', ['build'], {
 		env: {
 			...env,
@@ -79,27 +81,28 @@ export default async function setup(project: TestProject) {
 		},
 		stdio: ['ignore', 'inherit', 'inherit']
 	});
+	childTrack(app);
+	/** Everything started here, stopped and waited for: the app (SIGTERM, then SIGKILL), the mail server's group, the fakes. */
+	const teardown = async () => {
+		await Promise.all([childStop(app), childStop(mail)]);
+		await payments.close();
+		await s3.close();
+	};
 	const baseUrl = `http://127.0.0.1:${appPort}`;
 	const inboxUrl = `http://127.0.0.1:${inboxPort}`;
-	await waitFor(baseUrl, app);
-	await waitFor(inboxUrl, mail);
+	try {
+		await waitFor(baseUrl, app);
+		await waitFor(inboxUrl, mail);
+	} catch (e) {
+		await teardown(); // a set-up that fails gets no teardown from Vitest
+		throw e;
+	}
 	project.provide('baseUrl', baseUrl);
 	project.provide('inboxUrl', inboxUrl);
 	project.provide('paymentsUrl', payments.url);
 	project.provide('databaseUrl', databaseUrl);
 	project.provide('s3Endpoint', s3.endpoint);
-	return async () => {
-		app.kill('SIGTERM');
-		await payments.close();
-		if (mail.pid) {
-			try {
-				process.kill(-mail.pid, 'SIGTERM');
-			} catch {
-				/* already gone */
-			}
-		}
-		await s3.close();
-	};
+	return teardown;
 }
 
 declare module 'vitest' {

@@ -3,6 +3,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { createServer } from 'node:net';
+import { childStop, childTrack } from '../child-processes';
 
 export interface AppProcess {
 	baseUrl: string;
@@ -41,6 +42,7 @@ export async function appProcessStart(databaseUrl: string, extraEnv: NodeJS.Proc
 		},
 		stdio: ['ignore', 'pipe', 'pipe']
 	});
+	childTrack(child);
 	let out = '';
 	child.stdout?.on('data', (d) => (out += String(d)));
 	child.stderr?.on('data', (d) => (out += String(d)));
@@ -53,7 +55,10 @@ export async function appProcessStart(databaseUrl: string, extraEnv: NodeJS.Proc
 			await fetch(baseUrl, { signal: AbortSignal.timeout(2000) });
 			break;
 		} catch {
-			if (Date.now() > until) throw new Error(`the app did not answer within 30 s:\n${out}`);
+			if (Date.now() > until) {
+				await childStop(child);
+				throw new Error(`the app did not answer within 30 s:\n${out}`);
+			}
 			await new Promise((r) => setTimeout(r, 200));
 		}
 	}
@@ -62,12 +67,7 @@ export async function appProcessStart(databaseUrl: string, extraEnv: NodeJS.Proc
 		child,
 		exited: () => ended,
 		output: () => out,
-		async stop() {
-			if (ended) return;
-			const gone = new Promise((r) => child.once('exit', r));
-			child.kill('SIGTERM');
-			await Promise.race([gone, new Promise((r) => setTimeout(r, 5000))]);
-			if (!ended) child.kill('SIGKILL');
-		}
+		/** SIGTERM (the app finishes its requests in flight), SIGKILL after 10 s; resolves once it has exited. */
+		stop: () => childStop(child)
 	};
 }

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import demo from '../../fixtures/demo-studio.json';
+import { childStop, childTrack } from '../child-processes';
 
 async function freePort(): Promise<number> {
 	return new Promise((resolve, reject) => {
@@ -19,14 +20,9 @@ async function freePort(): Promise<number> {
 
 describe('npm start', () => {
 	let child: ChildProcess | null = null;
-	afterAll(() => {
-		if (child?.pid && child.exitCode === null) {
-			try {
-				process.kill(-child.pid, 'SIGTERM');
-			} catch {
-				/* already gone */
-			}
-		}
+	afterAll(async () => {
+		// the script's group: it and what it started (the app, the fakes), SIGTERM then SIGKILL
+		if (child) await childStop(child);
 		execFileSync('bash', ['scripts/db.sh', 'stop', 'scratch']);
 	});
 
@@ -50,6 +46,7 @@ describe('npm start', () => {
 			stdio: ['ignore', 'pipe', 'pipe'],
 			detached: true // its own process group: the test ends the script and what it started
 		});
+		childTrack(child, true);
 		let output = '';
 		child.stdout!.on('data', (b) => (output += b));
 		child.stderr!.on('data', (b) => (output += b));
