@@ -74,11 +74,14 @@ const odd = (list: SaveAnswer[], allowed: SaveAnswer['status'][]) => list.filter
 describe('a crash in the middle of 50 saves', () => {
 	it('loses no save answered 201 and stores nothing half-written when the app is killed with SIGKILL and started again', async () => {
 		const saves = savesStart(c, targets, VERSION_LOOPS, CHANGE_LOOPS);
-		await acknowledgedReach(saves, BEFORE_CRASH);
-		const gone = new Promise((r) => app.child.once('exit', r));
-		app.child.kill('SIGKILL');
-		await gone;
-		await saves.stop();
+		try {
+			await acknowledgedReach(saves, BEFORE_CRASH);
+			const gone = new Promise((r) => app.child.once('exit', r));
+			app.child.kill('SIGKILL');
+			await gone;
+		} finally {
+			await saves.stop();
+		}
 		answers.push(...saves.answers);
 		expect(saves.answers.filter((a) => a.status === 'failed').length, 'saves cut off by the crash').toBeGreaterThan(0);
 		expect(odd(saves.answers, ['failed'])).toEqual([]);
@@ -92,14 +95,18 @@ describe('a crash in the middle of 50 saves', () => {
 
 	it('loses no save answered 201 and stores nothing half-written when PostgreSQL is stopped in immediate mode and started again', async () => {
 		const saves = savesStart(c, targets, VERSION_LOOPS, CHANGE_LOOPS);
-		await acknowledgedReach(saves, BEFORE_CRASH);
-		await scratchCluster('stop', 'immediate');
-		const stoppedAt = saves.answers.length;
-		await new Promise((r) => setTimeout(r, 2000)); // saves keep coming while it is down
-		await scratchCluster('start');
-		// the app, never restarted, stores saves again
-		await acknowledgedReach(saves, saves.acknowledged() + 10);
-		await saves.stop();
+		let stoppedAt = 0;
+		try {
+			await acknowledgedReach(saves, BEFORE_CRASH);
+			await scratchCluster('stop', 'immediate');
+			stoppedAt = saves.answers.length;
+			await new Promise((r) => setTimeout(r, 2000)); // saves keep coming while it is down
+			await scratchCluster('start');
+			// the app, never restarted, stores saves again
+			await acknowledgedReach(saves, saves.acknowledged() + 10);
+		} finally {
+			await saves.stop();
+		}
 		answers.push(...saves.answers);
 		expect(app.exited(), `the app process exited:\n${app.output()}`).toBeNull();
 		expect(saves.answers.slice(stoppedAt).some((a) => a.status === 503), 'the outage was seen').toBe(true);
