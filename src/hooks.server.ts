@@ -9,16 +9,19 @@ import { handleSecurityHeaders } from '$lib/server/hooks/security-headers';
 import { handleSession } from '$lib/server/hooks/session';
 import { defaultErrorCode } from '$lib/server/http-errors';
 import { log } from '$lib/server/log';
+import { rateLimitCleanupStart } from '$lib/server/rate-limit-cleanup';
 import { shutdownOnSignal } from '$lib/server/shutdown';
 import { sizeRunWorkerStart } from '$lib/server/size-runs/queue';
 
 /**
- * The size-run worker (pg-boss) runs in every app process: `npm start` and the tests' app start it here.
+ * The size-run worker (pg-boss) runs in every app process: `npm start` and the tests' app start it here,
+ * with the timer that deletes expired rate-limit counters.
  * On SIGTERM or SIGINT adapter-node stops taking connections and lets the requests in flight finish
  * (SHUTDOWN_TIMEOUT, default 30 s), then says `sveltekit:shutdown`: the worker and the pools close then.
  */
 export const init: ServerInit = async () => {
 	sizeRunWorkerStart();
+	rateLimitCleanupStart();
 	shutdownOnSignal();
 };
 

@@ -1,10 +1,12 @@
 import { dbClose } from './db';
 import { log } from './log';
+import { rateLimitCleanupStop } from './rate-limit-cleanup';
 import { sizeRunQueueStop } from './size-runs/queue';
 
 /** After the last request in flight: the size-run worker stops (a run in progress may finish), the pools close. */
 export async function shutdownClose(reason: string): Promise<void> {
 	log.info({ reason }, 'shutting down: no new requests, the ones in flight are done');
+	rateLimitCleanupStop();
 	try {
 		await sizeRunQueueStop();
 	} catch (e) {

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import { passwordResetRequest } from '$lib/server/auth/accounts';
 import { requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
+import { log } from '$lib/server/log';
 import { rateLimitsTake } from '$lib/server/rate-limits';
 import { emailNormalize } from '$lib/server/repositories/users';
 import { emailSchema, fieldErrors, formObject } from '$lib/server/validation';
@@ -35,7 +36,7 @@ export const actions: Actions = {
 		try {
 			await passwordResetRequest(db(), { email: parsed.data.email, origin: event.url.origin });
 		} catch (e) {
-			console.error('[reset] could not send the reset mail:', e);
+			log.error({ err: e }, 'could not send the reset mail');
 			return fail(503, {
 				email: parsed.data.email,
 				errors: { email: ['We could not send mail just now. Try again in a few minutes.'] },

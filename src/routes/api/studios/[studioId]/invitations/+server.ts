@@ -5,6 +5,7 @@ import { invitationSend } from '$lib/server/auth/accounts';
 import { OWNER, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
+import { log } from '$lib/server/log';
 import { rateLimitedError, rateLimitTake } from '$lib/server/rate-limits';
 import { invitationsOpenForStudio, type InvitationRow } from '$lib/server/repositories/invitations';
 import { emailSchema, roleSchema } from '$lib/server/validation';
@@ -44,7 +45,7 @@ export const POST: RequestHandler = apiRoute(async (event) => {
 		});
 	} catch (e) {
 		if (e instanceof ApiError) throw e;
-		console.error('[invitations] could not send the invitation mail:', e);
+		log.error({ studioId, err: e }, 'could not send the invitation mail');
 		throw new ApiError(503, 'mail_unavailable', 'We could not send the invitation just now. Try again in a few minutes.');
 	}
 	if (!r.ok) {
