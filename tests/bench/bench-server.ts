@@ -19,8 +19,13 @@ export interface BenchServer {
 	close(): void;
 }
 
+/** Starts the test cluster (idempotent, DARTELIER_TEST_PG_PORT) and gives its database's URL. */
+export function testClusterUrl(): string {
+	return execFileSync('bash', ['-c', 'source scripts/lib.sh && pg_start test >&2 && printf %s "$DATABASE_URL"'], { encoding: 'utf8' }).trim();
+}
+
 export async function benchServer(): Promise<BenchServer> {
-	const url = execFileSync('bash', ['-c', 'source scripts/lib.sh && pg_start test >&2 && printf %s "$DATABASE_URL"'], { encoding: 'utf8' }).trim();
+	const url = testClusterUrl();
 	process.env.DATABASE_URL = url;
 	process.env.BODY_SIZE_LIMIT = '8M';
 	const db = dbCreate(url, 1);

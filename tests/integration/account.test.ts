@@ -97,6 +97,59 @@ describe('deleting one\'s account', () => {
 		expect((await w.asOwner.api('DELETE', '/api/me', { email: w.owner.email, password: PASSWORD })).status).toBe(204);
 	});
 
+	it('refuses the last owner of a studio with other members (409): make another member owner first, nothing deleted', async () => {
+		const w = await studioWithWork();
+		const r = await w.asOwner.api('DELETE', '/api/me', { email: w.owner.email, password: PASSWORD });
+		expect(r.status).toBe(409);
+		expect((await r.json()).error).toEqual({
+			code: 'last_owner',
+			message: `You are the last owner of "${w.studio.name}", and a studio needs an owner. Make another member owner first (on its Members page), then delete your account. Nothing was deleted.`
+		});
+		expect(await testDb().selectFrom('memberships').select('role').where('studio_id', '=', w.studio.id).where('user_id', '=', w.owner.id).executeTakeFirst()).toEqual({ role: 'owner' });
+	});
+
+	it('refuses the only member of a studio (409) saying the studio is not deleted and someone must be invited as owner first', async () => {
+		const studio = await studioMake('Alone');
+		const shared = await studioWithWork();
+		const owner = shared.owner;
+		await memberAdd(studio.id, owner.id, 'owner');
+		const r = await shared.asOwner.api('DELETE', '/api/me', { email: owner.email, password: PASSWORD });
+		expect(r.status).toBe(409);
+		const { message } = (await r.json()).error;
+		expect(message).toContain(`You are the last owner of "${shared.studio.name}"`);
+		expect(message).toContain(`You are the only member of "${studio.name}". Studios are not deleted in the app, and it needs an owner: invite someone as owner on its Members page and, once they have joined, delete your account.`);
+		expect(message).toMatch(/Nothing was deleted\.$/);
+		expect(await testDb().selectFrom('studios').select('id').where('id', '=', studio.id).executeTakeFirst()).toEqual({ id: studio.id });
+		expect((await shared.asOwner.api('GET', '/api/me')).status).toBe(200);
+	});
+
+	it('the account page says up front which studios stop the deletion, and shows the refusal after trying', async () => {
+		const studio = await studioMake('Solo');
+		const owner = await userMake('solo');
+		await memberAdd(studio.id, owner.id, 'owner');
+		const asOwner = await sessionClient(app.baseUrl, owner.id);
+		const html = await (await asOwner.get('/settings/account')).text();
+		expect(html).toContain(`You are the only member of &quot;${studio.name}&quot;. Studios are not deleted in the app`);
+		const refused = await asOwner.post('/settings/account?/delete', { email: owner.email, password: PASSWORD });
+		expect(refused.status).toBe(409);
+		const text = await refused.text();
+		expect(text).toContain('role="alert"');
+		expect(text).toContain('once they have joined, delete your account. Nothing was deleted.');
+		expect(await testDb().selectFrom('users').select('id').where('id', '=', owner.id).executeTakeFirst()).toEqual({ id: owner.id });
+	});
+
+	it('leaves the studio\'s payment-provider customer as it is when an owner who is not the last deletes the account', async () => {
+		const w = await studioWithWork();
+		const customerId = `cus_account_${w.studio.id.slice(0, 8)}`;
+		await testDb().updateTable('studio_billing').set({ customer_id: customerId }).where('studio_id', '=', w.studio.id).execute();
+		const before = await testDb().selectFrom('studio_billing').selectAll().where('studio_id', '=', w.studio.id).executeTakeFirstOrThrow();
+		expect((await w.asOwner.api('PATCH', `/api/studios/${w.studio.id}/members/${w.cutter.id}`, { role: 'owner' })).status).toBe(200);
+		const deliveries = app.payments.deliveries.length;
+		expect((await w.asOwner.api('DELETE', '/api/me', { email: w.owner.email, password: PASSWORD })).status).toBe(204);
+		expect(await testDb().selectFrom('studio_billing').selectAll().where('studio_id', '=', w.studio.id).executeTakeFirstOrThrow()).toEqual(before);
+		expect(app.payments.deliveries.length).toBe(deliveries);
+	});
+
 	it('deletes the account: every session ends, the work stays with the studio by "former member", the address is free', async () => {
 		const w = await studioWithWork();
 		const otherSession = await sessionClient(app.baseUrl, w.cutter.id);

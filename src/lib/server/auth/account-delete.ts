@@ -1,7 +1,8 @@
 import type { Db } from '../db';
-import { membershipsOwnersLocked } from '../repositories/memberships';
+import { membershipsCount, membershipsOwnersLocked } from '../repositories/memberships';
 import { usersByEmail, usersDelete, usersOwnedStudios } from '../repositories/users';
 import type { Outcome } from './accounts';
+import { lastOwnerMessage, type SoleOwnedStudio } from './last-owner-message';
 import { passwordVerify } from './password';
 import { signInBlocked, signInFailed } from './throttle';
 
@@ -11,7 +12,9 @@ import { signInBlocked, signInFailed } from './throttle';
  * (styles, versions, changes, fittings, photos, notes, comments, reviews, size runs, measurement sets)
  * stays with its studio, its author column set to NULL (ON DELETE SET NULL), shown as "former member".
  * The e-mail address is freed: it may sign up again, as a new person with none of the old work.
- * The last owner of a studio is refused: a studio always keeps an owner.
+ * The last owner of a studio is refused: a studio always keeps an owner (and is never deleted here); the
+ * message says, per studio, to make another member owner first, or, for a studio with no other member, to
+ * invite someone as owner first. The studio's payment-provider customer (studio_billing) is not touched.
  * A wrong password counts as a failed sign-in (the same throttle).
  */
 export async function accountDelete(
@@ -28,21 +31,13 @@ export async function accountDelete(
 	}
 	return db.transaction().execute(async (tx) => {
 		const owned = await usersOwnedStudios(tx, input.userId);
-		const alone: string[] = [];
+		const sole: SoleOwnedStudio[] = [];
 		for (const s of owned) {
 			// the owner rows are locked: nobody demotes or removes the other owner while this runs
 			const owners = await membershipsOwnersLocked(tx, s.studioId);
-			if (owners.length <= 1) alone.push(`"${s.studioName}"`);
+			if (owners.length <= 1) sole.push({ studioName: s.studioName, otherMembers: (await membershipsCount(tx, s.studioId)) - 1 });
 		}
-		if (alone.length > 0) {
-			return {
-				ok: false as const,
-				reason: 'last_owner' as const,
-				message:
-					`You are the last owner of ${alone.join(', ')}, and a studio needs one. On ${alone.length === 1 ? 'its' : 'each one\'s'} Members page make another member owner ` +
-					'(or, if you are its only member, invite someone as owner and wait until they join), then delete your account. Nothing was deleted.'
-			};
-		}
+		if (sole.length > 0) return { ok: false as const, reason: 'last_owner' as const, message: lastOwnerMessage(sole) };
 		const studiosLeft = await usersDelete(tx, input.userId);
 		return { ok: true as const, value: { studiosLeft } };
 	});

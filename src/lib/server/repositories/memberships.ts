@@ -134,3 +134,41 @@ export async function membershipsDelete(db: DbOrTx, studioId: string, userId: st
 		.executeTakeFirst();
 	return Number(r.numDeletedRows) > 0;
 }
+
+/** How many members a studio has (every role). */
+export async function membershipsCount(db: DbOrTx, studioId: string): Promise<number> {
+	const r = await db.selectFrom('memberships').select((eb) => eb.fn.countAll<string>().as('n')).where('studio_id', '=', studioId).executeTakeFirstOrThrow();
+	return Number(r.n);
+}
+
+/**
+ * The studios a person is the only owner of, each with how many other members it has: what stops them
+ * deleting their account (read for the account page; the deletion checks again under the owners' locks).
+ */
+export async function membershipsSoleOwnerOf(db: DbOrTx, userId: string): Promise<{ studioId: string; studioName: string; otherMembers: number }[]> {
+	const rows = await db
+		.selectFrom('memberships as mine')
+		.innerJoin('studios', 'studios.id', 'mine.studio_id')
+		.select((eb) => [
+			'studios.id as studioId',
+			'studios.name as studioName',
+			eb
+				.selectFrom('memberships as o')
+				.select((e2) => e2.fn.countAll<string>().as('n'))
+				.whereRef('o.studio_id', '=', 'mine.studio_id')
+				.where('o.role', '=', 'owner')
+				.as('owners'),
+			eb
+				.selectFrom('memberships as m')
+				.select((e2) => e2.fn.countAll<string>().as('n'))
+				.whereRef('m.studio_id', '=', 'mine.studio_id')
+				.as('members')
+		])
+		.where('mine.user_id', '=', userId)
+		.where('mine.role', '=', 'owner')
+		.orderBy('studios.name')
+		.execute();
+	return rows
+		.filter((r) => Number(r.owners) <= 1)
+		.map((r) => ({ studioId: r.studioId, studioName: r.studioName, otherMembers: Number(r.members) - 1 }));
+}
