@@ -3,7 +3,7 @@
 // the built app started as its own process (`node build`) on a loopback port, then signed in as the
 // demo owner. Needs `npx vite build` first.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createWriteStream, existsSync, mkdirSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync } from 'node:fs';
 import { createServer } from 'node:net';
 import pg from 'pg';
 import demo from '../../fixtures/demo-studio.json';
@@ -87,8 +87,11 @@ export async function loadAppStart(): Promise<LoadApp> {
 	// not limited anyway; sign-in failures are counted apart and none happen here).
 	const limits = Object.fromEntries(Object.keys(RATE_LIMITS).map((name) => [`RATE_LIMIT_${name.toUpperCase()}`, '1000000']));
 	mkdirSync('.run', { recursive: true });
-	const appLog = createWriteStream('.run/bench-load-app.log');
-	const child = spawn(process.execPath, ['build'], {
+	// the app writes its log lines straight into the file (no relay through this process)
+	const appLog = openSync('.run/bench-load-app.log', 'w');
+	// LOAD_PROFILE=1: the app writes a CPU profile into .run/prof when it stops
+	const profile = process.env.LOAD_PROFILE ? ['--cpu-prof', '--cpu-prof-dir=.run/prof'] : [];
+	const child = spawn(process.execPath, [...profile, 'build'], {
 		env: {
 			...process.env,
 			...limits,
@@ -102,10 +105,9 @@ export async function loadAppStart(): Promise<LoadApp> {
 			S3_ENDPOINT: s3.endpoint,
 			S3_BUCKET: s3.bucket
 		},
-		stdio: ['ignore', 'pipe', 'pipe']
+		stdio: ['ignore', appLog, appLog]
 	});
-	child.stdout!.pipe(appLog);
-	child.stderr!.pipe(appLog);
+	closeSync(appLog);
 	await waitReady(base, child);
 
 	const owner = demo.users.find((u) => u.role === 'owner')!;

@@ -17,8 +17,9 @@ const params = z.object({ studioId: z.string(), pieceId: uuidSchema });
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { studioId, role } = await requireRole(event, ALL_ROLES);
 	const { pieceId } = parseParams(event.params, params);
-	await pieceOr404(db(), studioId, pieceId);
-	return json({ versions: await versionsOfPiece(db(), pieceId, seesOnlySignedOff(role)) });
+	// side by side: the list is sent only when the piece is the studio's (404 otherwise)
+	const [, versions] = await Promise.all([pieceOr404(db(), studioId, pieceId), versionsOfPiece(db(), pieceId, seesOnlySignedOff(role))]);
+	return json({ versions });
 });
 
 /** Saves a new version: verified and recomputed on the server (see $lib/server/versions/save). */
