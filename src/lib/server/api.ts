@@ -74,11 +74,40 @@ async function readJsonValue(request: Request, limit: number): Promise<unknown> 
 		throw new ApiError(415, 'unsupported_media_type', 'Send JSON (Content-Type: application/json).');
 	}
 	const text = await readBodyLimited(request, limit);
+	let value: unknown;
 	try {
-		return text === '' ? undefined : JSON.parse(text);
+		value = text === '' ? undefined : JSON.parse(text);
 	} catch {
 		throw new ApiError(400, 'invalid_json', 'The request body is not valid JSON.');
 	}
+	// JSON can carry U+0000 only as the escape \u0000: look further only when the text holds one
+	if (text.includes('\\u0000') && jsonHoldsNul(value)) {
+		throw new ApiError(400, 'invalid', 'The request body holds the NUL character (\\u0000), which no text may contain.');
+	}
+	return value;
+}
+
+/**
+ * Does a parsed JSON value hold U+0000 in any string or key? PostgreSQL stores it in neither text nor
+ * jsonb (the insert would fail), so such a body is refused before any database work. Walks without
+ * recursion: a body may be nested thousands deep.
+ */
+export function jsonHoldsNul(value: unknown): boolean {
+	const stack: unknown[] = [value];
+	while (stack.length > 0) {
+		const v = stack.pop();
+		if (typeof v === 'string') {
+			if (v.includes('\u0000')) return true;
+		} else if (Array.isArray(v)) {
+			for (const x of v) stack.push(x);
+		} else if (v !== null && typeof v === 'object') {
+			for (const [k, x] of Object.entries(v)) {
+				if (k.includes('\u0000')) return true;
+				stack.push(x);
+			}
+		}
+	}
+	return false;
 }
 
 function validated<S extends z.ZodType>(value: unknown, schema: S): z.output<S> {
