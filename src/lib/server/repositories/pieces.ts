@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import type { DbOrTx } from '../db';
 import type { VersionState } from '../db/schema';
 
@@ -107,4 +108,34 @@ export async function piecesOfStyleWithShown(db: DbOrTx, styleId: string, onlySi
 		...piece,
 		shown: vId === null || vId === undefined ? null : { id: vId, number: vNumber!, state: vState!, geometry: vGeometry, metrics: vMetrics, checks: vChecks }
 	}));
+}
+
+/** A piece with its shown version's JSON columns as the database writes them (text, not parsed). */
+export interface PieceWithShownText extends PieceRow {
+	vId: string | null;
+	vNumber: number | null;
+	vState: VersionState | null;
+	vGeometry: string | null;
+	vMetrics: string | null;
+	vChecks: string | null;
+}
+
+/**
+ * The same rows as piecesOfStyleWithShown, with the shown version's geometry, metrics and checks as JSON
+ * text: for an answer that passes them on unchanged, neither parsed here nor written out again.
+ */
+export async function piecesOfStyleWithShownText(db: DbOrTx, styleId: string, onlySignedOff: boolean): Promise<PieceWithShownText[]> {
+	const which = onlySignedOff ? sql`v.state = 'signed_off' order by v.number desc limit 1` : sql`v.id = p.head_version_id`;
+	const r = await sql<PieceWithShownText>`
+		select p.id, p.style_id as "styleId", p.name, p.cut, p.fabric, p.sort_order as "sortOrder",
+			p.head_version_id as "headVersionId", p.head_number as "headNumber",
+			s.id as "vId", s.number as "vNumber", s.state as "vState",
+			s.geometry::text as "vGeometry", s.metrics::text as "vMetrics", s.checks::text as "vChecks"
+		from pieces p
+		left join lateral (
+			select v.id, v.number, v.state, v.geometry, v.metrics, v.checks from piece_versions v where v.piece_id = p.id and ${which}
+		) s on true
+		where p.style_id = ${styleId}
+		order by p.sort_order, p.name`.execute(db);
+	return r.rows;
 }
