@@ -8,29 +8,20 @@ import { measurementSetsOfStudio } from '../../src/lib/server/repositories/measu
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { stylesCreate } from '../../src/lib/server/repositories/styles';
 import { startApp, type RunningApp } from './app-server';
-import { memberAdd, sessionClient, studioMake, studioOnStudioPlan, testDb, testDbClose, userMake, type Client } from './helpers';
+import { memberAdd, sessionClient, studioMake, testDb, testDbClose, userMake, type Client } from './helpers';
+import { sizeRunWorld } from './size-run-support';
 
 let app: RunningApp;
 let studioId: string;
 let styleId: string;
-const sets = new Map<string, string>();
-const c = {} as Record<'owner' | 'patterncutter' | 'designer' | 'sampleroom', Client>;
+let sets: Map<string, string>;
+let c: Record<'owner' | 'patterncutter' | 'designer' | 'sampleroom', Client>;
 
 beforeAll(async () => {
 	app = await startApp();
-	const studio = await studioMake('Grading');
-	studioId = studio.id;
-	await studioOnStudioPlan(studioId);
-	const users = {} as Record<keyof typeof c, string>;
-	for (const role of ['owner', 'patterncutter', 'designer', 'sampleroom'] as const) {
-		const u = await userMake(role);
-		users[role] = u.id;
-		await memberAdd(studioId, u.id, role);
-		c[role] = await sessionClient(app.baseUrl, u.id);
-	}
-	await measurementChartsEnsure(testDb(), studioId);
-	for (const s of await measurementSetsOfStudio(testDb(), studioId)) if (s.chartKey) sets.set(s.chartKey, s.id);
-	styleId = (await demoStyleSeed(testDb(), studioId, { patterncutter: users.patterncutter, designer: users.designer })).styleId;
+	const world = await sizeRunWorld(app.baseUrl, 'Grading', ['owner', 'patterncutter', 'designer', 'sampleroom']);
+	({ studioId, as: c, sets } = world);
+	styleId = (await demoStyleSeed(testDb(), studioId, { patterncutter: world.users.patterncutter, designer: world.users.designer })).styleId;
 }, 120_000);
 
 afterAll(async () => {

@@ -9,18 +9,17 @@ import { pdfRead } from '../../src/lib/export/test-support/pdf-read';
 import { outlineArea } from '../../src/lib/pattern/kernel';
 import { outlinePleatsAcross } from '../../src/lib/pattern/export/pleat-marks';
 import { pieceSchema } from '../../src/lib/pattern/piece-schema';
-import { measurementChartsEnsure } from '../../src/lib/server/measurements/charts';
-import { measurementSetsOfStudio } from '../../src/lib/server/repositories/measurement-sets';
 import { sizeRunsInsert } from '../../src/lib/server/repositories/size-runs';
 import { demoStyleSeed } from '../../src/lib/server/seed/demo-style';
 import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { startApp, type RunningApp } from './app-server';
-import { memberAdd, sessionClient, studioMake, studioOnStudioPlan, testDb, testDbClose, userMake, type Client } from './helpers';
+import { testDb, testDbClose, type Client } from './helpers';
+import { sizeRunWorld } from './size-run-support';
 
 type RoleName = 'owner' | 'designer' | 'sampleroom';
 let app: RunningApp;
 let studioId: string;
-const c = {} as Record<RoleName, Client>;
+let c: Record<RoleName, Client>;
 interface SetOut { id: string; sizes: { id: string; name: string; pieces: { id: string; name: string }[] }[] }
 let set: SetOut;
 const base = () => `/api/studios/${studioId}/size-sets/${set.id}`;
@@ -29,17 +28,9 @@ const blockOf = (piece: string, size: string) => dxfBlockName(`${piece} ${size}`
 
 beforeAll(async () => {
 	app = await startApp();
-	studioId = (await studioMake('Size set exports')).id;
-	await studioOnStudioPlan(studioId);
-	const users = {} as Record<RoleName, string>;
-	for (const role of ['owner', 'designer', 'sampleroom'] as const) {
-		users[role] = (await userMake(role)).id;
-		await memberAdd(studioId, users[role], role);
-		c[role] = await sessionClient(app.baseUrl, users[role]);
-	}
-	await measurementChartsEnsure(testDb(), studioId);
-	const sets = new Map<string, string>();
-	for (const s of await measurementSetsOfStudio(testDb(), studioId)) if (s.chartKey) sets.set(s.chartKey, s.id);
+	const world = await sizeRunWorld(app.baseUrl, 'Size set exports', ['owner', 'designer', 'sampleroom']);
+	({ studioId, as: c } = world);
+	const { users, sets } = world;
 	const { styleId } = await demoStyleSeed(testDb(), studioId, { patterncutter: users.owner, designer: users.designer });
 	const sizes = ['astm-d5585/curvy/8', 'astm-d5585/curvy/14'].map((k) => ({ measurementSetId: sets.get(k)!, name: k }));
 	const run = await sizeRunsInsert(testDb(), { studioId, styleId, createdBy: users.owner, sizes });

@@ -16,15 +16,16 @@ import { demoStyleSeed } from '../../src/lib/server/seed/demo-style';
 import { sizeRunExecute } from '../../src/lib/server/size-runs/run';
 import { styleRecipeLoad } from '../../src/lib/server/size-runs/style-recipe-load';
 import { startApp, type RunningApp } from './app-server';
-import { memberAdd, sessionClient, studioMake, studioOnStudioPlan, testDb, testDbClose, userMake, type Client } from './helpers';
+import { memberAdd, sessionClient, studioMake, testDb, testDbClose, userMake, type Client } from './helpers';
+import { sizeRunWorld } from './size-run-support';
 
 type RoleName = 'owner' | 'patterncutter' | 'designer' | 'sampleroom';
 let app: RunningApp;
 let studioId: string;
 let styleId: string;
-const sets = new Map<string, string>();
-const users = {} as Record<RoleName, string>;
-const c = {} as Record<RoleName, Client>;
+let sets: Map<string, string>;
+let users: Record<RoleName, string>;
+let c: Record<RoleName, Client>;
 
 interface PieceOut { id: string; name: string; basePieceId: string; baseVersionId: string; baseVersionNumber: number; metrics: unknown }
 interface SizeOut { id: string; measurementSetId: string; name: string; state: string; signedOffBy: { id: string; name: string } | null; signedOffAt: string | null; checks: { passed: number; failed: number }; pieces?: PieceOut[] }
@@ -32,15 +33,7 @@ interface SetOut { id: string; sizeRunId: string; name: string; signedOff: numbe
 
 beforeAll(async () => {
 	app = await startApp();
-	studioId = (await studioMake('Size sets')).id;
-	await studioOnStudioPlan(studioId);
-	for (const role of ['owner', 'patterncutter', 'designer', 'sampleroom'] as const) {
-		users[role] = (await userMake(role)).id;
-		await memberAdd(studioId, users[role], role);
-		c[role] = await sessionClient(app.baseUrl, users[role]);
-	}
-	await measurementChartsEnsure(testDb(), studioId);
-	for (const s of await measurementSetsOfStudio(testDb(), studioId)) if (s.chartKey) sets.set(s.chartKey, s.id);
+	({ studioId, users, as: c, sets } = await sizeRunWorld(app.baseUrl, 'Size sets', ['owner', 'patterncutter', 'designer', 'sampleroom']));
 	styleId = (await demoStyleSeed(testDb(), studioId, { patterncutter: users.patterncutter, designer: users.designer })).styleId;
 }, 120_000);
 
