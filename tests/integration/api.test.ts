@@ -1,17 +1,10 @@
 // The JSON API of studios and members: validation, conflicts, body limits, studio boundaries.
 import http from 'node:http';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startApp, type RunningApp } from './app-server';
-import { Client, memberAdd, sessionClient, studioMake, testDbClose, userMake } from './helpers';
+import { describe, expect, it } from 'vitest';
+import { appForFile } from './app-server';
+import { Client, memberAdd, sessionClient, studioMake, userMake } from './helpers';
 
-let app: RunningApp;
-beforeAll(async () => {
-	app = await startApp();
-});
-afterAll(async () => {
-	await app?.close();
-	await testDbClose();
-});
+const app = appForFile();
 
 async function studioOf(roles: ('owner' | 'patterncutter' | 'designer' | 'sampleroom')[]) {
 	const studio = await studioMake('Api');

@@ -4,8 +4,9 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { inject } from 'vitest';
+import { afterAll, beforeAll, inject } from 'vitest';
 import { PAYMENTS_FAKE_KEY, PAYMENTS_FAKE_WEBHOOK_SECRET, paymentsFakeStart, type PaymentsFake } from '../../scripts/payments-fake/server';
+import { testDbClose } from './helpers';
 import { startMailbox, type Mailbox } from './mailbox';
 
 export interface RunningApp {
@@ -62,5 +63,36 @@ export async function startApp(): Promise<RunningApp> {
 			await mailbox.close();
 			await payments.close();
 		}
+	};
+}
+
+/**
+ * The built app for the whole test file: started before its tests, closed after them together with the
+ * tests' database pool. Call once at the top of the file; read the app's fields inside tests and hooks.
+ */
+export function appForFile(): RunningApp {
+	let running: RunningApp | undefined;
+	beforeAll(async () => {
+		running = await startApp();
+	});
+	afterAll(async () => {
+		await running?.close();
+		await testDbClose();
+	});
+	const started = (): RunningApp => {
+		if (!running) throw new Error('the app is not started yet: read it inside a test or hook');
+		return running;
+	};
+	return {
+		get baseUrl() {
+			return started().baseUrl;
+		},
+		get mailbox() {
+			return started().mailbox;
+		},
+		get payments() {
+			return started().payments;
+		},
+		close: () => started().close()
 	};
 }

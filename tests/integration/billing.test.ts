@@ -1,20 +1,11 @@
 // Plans and seats through the payment provider's SDK against the local fake, over real HTTP: checkout on
 // the fake's page, its signed webhooks, the limits that follow, changes of seats, a failed payment.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startApp, type RunningApp } from './app-server';
+import { describe, expect, it } from 'vitest';
+import { appForFile } from './app-server';
 import { billingOf, checkoutPay, ownedStudio, upgrade } from './billing-helpers';
-import { sessionClient, testDb, testDbClose, userMake } from './helpers';
+import { sessionClient, testDb, userMake } from './helpers';
 
-let app: RunningApp;
-
-beforeAll(async () => {
-	app = await startApp();
-});
-
-afterAll(async () => {
-	await app?.close();
-	await testDbClose();
-});
+const app = appForFile();
 
 describe('upgrading through the checkout', () => {
 	it('moves a Sketch studio to Studio with the seats paid once the webhook is handled', async () => {

@@ -1,18 +1,11 @@
 // Withdrawing an invitation and leaving a studio: the owner withdraws an open invitation (its link stops
 // working, its seat is free); a member leaves a studio; the last owner cannot leave (409).
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { sql } from 'kysely';
-import { startApp, type RunningApp } from './app-server';
-import { Client, memberAdd, sessionClient, studioMake, testDb, testDbClose, uniq, userMake } from './helpers';
+import { appForFile } from './app-server';
+import { Client, memberAdd, sessionClient, studioMake, testDb, uniq, userMake } from './helpers';
 
-let app: RunningApp;
-beforeAll(async () => {
-	app = await startApp();
-});
-afterAll(async () => {
-	await app?.close();
-	await testDbClose();
-});
+const app = appForFile();
 beforeEach(async () => {
 	await sql`delete from rate_limits`.execute(testDb());
 });
