@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ledgerEntrySchema, type LedgerEntry } from '../ledger';
 import type { PiecesResult } from '../panels';
 import { cutInstructionSchema, pieceSchema, type Piece } from '../piece-schema';
+import { stepAnchorProblems } from '../anchors/anchor-check';
 import { PIECES_STEP_NAMES, piecesForStep, piecesStepApply, recipeStepApply, recipeStepSchema } from './registry';
 
 /**
@@ -84,6 +85,8 @@ export function changeRecompute(bases: ReadonlyMap<string, Piece>, steps: readon
 			const before = piece;
 			const ledger: LedgerEntry[] = [];
 			for (const [n, s] of (src.recipe ?? []).entries()) {
+				const anchors = stepAnchorProblems(s.params, [piece], false);
+				if (anchors.length > 0) return fail('replay_refused', `step ${n + 1} (${s.op}) made on source ${k + 1}: ${anchors[0]}.`);
 				const r = recipeStepApply(piece, s);
 				if (!r.ok) return fail('replay_refused', `step ${n + 1} (${s.op}) made on source ${k + 1} cannot be replayed: ${r.error.message}`);
 				piece = r.piece;
@@ -93,6 +96,8 @@ export function changeRecompute(bases: ReadonlyMap<string, Piece>, steps: readon
 			recipes.push({ before, ledger });
 		}
 		const sources = piecesForStep(given);
+		const anchors = stepAnchorProblems(step.params, sources, true);
+		if (anchors.length > 0) return fail('replay_refused', `${anchors[0]}.`);
 		const r = piecesStepApply(sources, step);
 		if (!r.ok) return fail(r.error.code === 'invalid_params' ? 'change_invalid' : 'replay_refused', r.error.message);
 		outcomes.push({ sources, sourceRecipes: recipes, result: r });

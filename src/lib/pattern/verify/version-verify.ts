@@ -5,6 +5,7 @@ import type { OperationResult } from '../operation-result';
 import { resultProblems } from '../operation-result';
 import type { Piece } from '../piece-schema';
 import { CLIENT_ORIGIN_STEP_NAMES } from '../recipe/registry';
+import { stepAnchorProblems } from '../anchors/anchor-check';
 import { pieceGeometryDifference, REPLAY_TOLERANCE_MM } from './piece-compare';
 
 /** One step of a recipe as stored: an operation name and its parameters. */
@@ -82,6 +83,8 @@ export function versionVerify(
 	let current = parent;
 	const ledger: LedgerEntry[] = [];
 	for (const [i, step] of recipe.entries()) {
+		const anchors = stepAnchorProblems(step.params, [current], false);
+		if (anchors.length > 0) return fail('replay_refused', `Step ${i + 1} (${step.op}): ${anchors[0]}.`, anchors);
 		const r = replay(current, step);
 		if (!r.ok) return fail('replay_refused', `Step ${i + 1} (${step.op}) cannot be replayed on the base version: ${r.error.message}`);
 		current = r.piece;

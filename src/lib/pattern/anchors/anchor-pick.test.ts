@@ -1,0 +1,109 @@
+import { describe, expect, it } from 'vitest';
+import { blockDraft, EASE_DEFAULT } from '../drafting';
+import { vecDistance, type Vec } from '../kernel';
+import { astmD5585MeasurementSet, measurementsMm } from '../measurements';
+import { seamPointAt } from '../piece-seams';
+import { recipeStepApply } from '../recipe/registry';
+import { versionVerify } from '../verify/version-verify';
+import { anchorBody, anchorResolve, anchorSchema, type Anchor, type AnchorBody } from './anchor';
+import { stepAnchorProblems } from './anchor-check';
+import { anchoredPoint, anchorPick } from './anchor-pick';
+import { anchorText } from './anchor-text';
+
+// The front block drafted from ASTM D5585-11e1 Table 1, curvy size 10 (reference-values row 1, C).
+const front = () => blockDraft(measurementsMm(astmD5585MeasurementSet('curvy', '10')), EASE_DEFAULT, { bustDart: 'shoulder' }).front;
+const mm = (v: number) => `${v.toFixed(1)} mm`;
+
+function onSeam(body: AnchorBody, name: string, from: 'start' | 'end', d: number): Vec {
+	const seam = body.seams.find((s) => s.name === name)!;
+	const r = seamPointAt(body.piece, seam, from, d);
+	if (!r.ok) throw new Error(r.message);
+	return r.point;
+}
+
+/** The anchor found again on the same piece, and how far from the clicked point. */
+function backDistance(body: AnchorBody, a: Anchor, clicked: Vec): number {
+	expect(anchorSchema.safeParse(a).success).toBe(true);
+	const r = anchorResolve(body, a);
+	return r.ok ? vecDistance(r.point, clicked) : Infinity;
+}
+
+describe('the anchor of a point the pattern cutter picked', () => {
+	const body = anchorBody(front());
+
+	it('reads a click on the side seam as a fraction of the seam, found again within 1e-6 mm', () => {
+		const seam = body.seams.find((s) => s.name === 'side seam')!;
+		const p = onSeam(body, 'side seam', 'start', seam.lengthMm * 0.4);
+		const pick = anchorPick(body, p)!;
+		expect(pick.anchor).toMatchObject({ kind: 'edge', edge: 'side seam', from: 'start' });
+		expect(pick.anchor.kind === 'edge' && pick.anchor.fraction).toBeCloseTo(0.4, 9);
+		expect(backDistance(body, pick.anchor, p)).toBeLessThan(1e-6);
+		expect(vecDistance(pick.point, p)).toBeLessThan(1e-6);
+	});
+
+	it('reads a place near the end of the shoulder as a distance from that nearer end, found again within 1e-6 mm', () => {
+		const p = onSeam(body, 'shoulder', 'end', 23.5);
+		const pick = anchorPick(body, p, { edgeBy: 'distance' })!;
+		expect(pick.anchor).toMatchObject({ kind: 'edge', edge: 'shoulder', from: 'end' });
+		expect(pick.anchor.kind === 'edge' && pick.anchor.distanceMm).toBeCloseTo(23.5, 9);
+		expect(backDistance(body, pick.anchor, p)).toBeLessThan(1e-6);
+	});
+
+	it('snaps a click within the tolerance of a landmark to the landmark itself', () => {
+		const waist = body.landmarks.find((l) => l.name === 'side waist')!.point;
+		const clicked = { x: waist.x + 0.6, y: waist.y - 0.5 };
+		const pick = anchorPick(body, clicked, { landmarkTolMm: 1.5 })!;
+		expect(pick.anchor).toEqual({ kind: 'landmark', name: 'side waist' });
+		expect(vecDistance(pick.point, waist)).toBe(0);
+		expect(backDistance(body, pick.anchor, pick.point)).toBeLessThan(1e-6);
+		// exactly on the landmark it is that landmark with the default (tight) tolerance too
+		expect(anchorPick(body, waist)!.anchor).toEqual({ kind: 'landmark', name: 'side waist' });
+	});
+
+	it('falls back to an offset from the nearest landmark for a point inside the piece, found again within 1e-6 mm', () => {
+		const bp = body.landmarks.find((l) => l.name === 'bust-point')!.point;
+		const p = { x: bp.x + 12, y: bp.y + 5 };
+		const pick = anchorPick(body, p)!;
+		expect(pick.anchor).toMatchObject({ kind: 'offset', of: { kind: 'landmark', name: 'bust-point' } });
+		expect(pick.anchor.kind === 'offset' && [pick.anchor.dxMm, pick.anchor.dyMm]).toEqual([expect.closeTo(12, 9), expect.closeTo(5, 9)]);
+		expect(backDistance(body, pick.anchor, p)).toBeLessThan(1e-6);
+	});
+
+	it('says each anchor in the trade’s words and in the person’s unit', () => {
+		const seam = body.seams.find((s) => s.name === 'side seam')!;
+		const at40 = anchorPick(body, onSeam(body, 'side seam', 'start', seam.lengthMm * 0.4))!.anchor;
+		expect(anchorText(at40, body, mm)).toBe(`side seam, 40 % from the ${seam.startNeighbour}`);
+		const shoulder = anchorPick(body, onSeam(body, 'shoulder', 'start', 30), { edgeBy: 'distance' })!.anchor;
+		expect(anchorText(shoulder, body, mm)).toBe('30.0 mm from the side neck point along the shoulder');
+		expect(anchorText(shoulder, body, (v) => `${(v / 10).toFixed(2)} cm`)).toBe('3.00 cm from the side neck point along the shoulder');
+		expect(anchorText({ kind: 'landmark', name: 'bust-point' }, body, mm)).toBe('bust point');
+		expect(anchorText({ kind: 'offset', of: { kind: 'landmark', name: 'bust-point' }, dxMm: 12, dyMm: 5 }, body, mm)).toBe('offset 12.0 mm right, 5.0 mm down from the bust point');
+	});
+});
+
+describe('a save checks the anchors sent with a step', () => {
+	const piece = front();
+	const body = anchorBody(piece);
+	const seam = body.seams.find((s) => s.name === 'side seam')!;
+	const to = anchoredPoint(body, onSeam(body, 'side seam', 'start', seam.lengthMm * 0.5));
+	const step = { op: 'pivot', params: { dartId: piece.darts[0].id, to } };
+
+	it('accepts a step whose anchor gives its point, and the version verifies', () => {
+		expect(stepAnchorProblems(step.params, [piece], false)).toEqual([]);
+		const r = recipeStepApply(piece, step);
+		expect(r.ok).toBe(true);
+		if (!r.ok) return;
+		expect(versionVerify(piece, r.piece, [step], recipeStepApply).ok).toBe(true);
+	});
+
+	it('refuses a step whose anchor says another place than its point, saying how far', () => {
+		const lying = { ...step, params: { ...step.params, to: { ...to, anchor: { kind: 'landmark', name: 'side waist' } } } };
+		const problems = stepAnchorProblems(lying.params, [piece], false);
+		expect(problems[0]).toMatch(/is anchored at the side waist, which is \d+\.\d\d mm away/);
+		const r = recipeStepApply(piece, lying);
+		expect(r.ok).toBe(true);
+		if (!r.ok) return;
+		const v = versionVerify(piece, r.piece, [lying], recipeStepApply);
+		expect(!v.ok && v.problem.message).toMatch(/^Step 1 \(pivot\): the point .* is anchored at the side waist/);
+	});
+});
