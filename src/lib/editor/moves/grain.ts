@@ -1,11 +1,12 @@
-import type { Vec } from '$lib/geometry';
+import type { AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
+import { pickedPoint } from './anchored';
 import { editableSelected, movePiece, pickPiece, reportReadouts, stepPreview, type OnPiece } from './common';
 import { NOTHING, outcome, type MoveDef } from './types';
 
 export interface GrainState extends OnPiece {
 	id: 'grain';
-	/** The middle of the grainline (piece coordinates). */
-	target: Vec | null;
+	/** The middle of the grainline (piece coordinates), with its anchor. */
+	target: AnchoredPoint | null;
 	lengthMm: number;
 	direction: 'lengthwise' | 'crosswise' | 'bias';
 	/** Both: either way up; one: nap or a one-way print. */
@@ -30,11 +31,11 @@ export const grainMove: MoveDef<GrainState> = {
 	down(ctx, st, p) {
 		const h = p.hit;
 		if (!h || !pickPiece(ctx, st, h.pieceKey)) return false;
-		st.target = ctx.local(h.pieceKey, p.world);
+		st.target = pickedPoint(ctx, st.pieceKey, ctx.local(h.pieceKey, p.world));
 		return true;
 	},
 	move(ctx, st, p) {
-		if (st.pieceKey) st.target = ctx.local(st.pieceKey, p.world);
+		if (st.pieceKey) st.target = pickedPoint(ctx, st.pieceKey, ctx.local(st.pieceKey, p.world));
 	},
 	commit(ctx, st) {
 		const s = grainStep(st);

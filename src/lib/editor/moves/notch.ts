@@ -1,12 +1,13 @@
-import type { Vec } from '$lib/geometry';
 import type { Piece } from '$lib/pattern/piece-schema';
+import type { AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
+import { anchoredOn, pickedPoint } from './anchored';
 import { editableSelected, movePiece, pickPiece, reportReadouts, stepPreview, type OnPiece } from './common';
 import { NOTHING, outcome, type MoveDef } from './types';
 
 export interface NotchState extends OnPiece {
 	id: 'notch';
-	/** On the stitching line (piece coordinates). */
-	target: Vec | null;
+	/** On the stitching line (piece coordinates), with its anchor: a distance from the nearer end of its seam. */
+	target: AnchoredPoint | null;
 	/** One notch marks the front, two the back. */
 	count: 1 | 2;
 }
@@ -20,7 +21,7 @@ export function uniqueId(taken: readonly string[], base: string): string {
 
 export function notchStep(g: Piece | null, st: NotchState) {
 	if (!g || !st.target) return null;
-	return { op: 'notch', params: { id: uniqueId(g.notches.map((n) => n.id), 'notch'), at: st.target, count: st.count } };
+	return { op: 'notch', params: { id: uniqueId(g.notches.map((n) => n.id), 'notch'), at: anchoredOn(g, st.target, 'distance'), count: st.count } };
 }
 
 /** Notch: a balance mark on the stitching line. */
@@ -36,14 +37,14 @@ export const notchMove: MoveDef<NotchState> = {
 	down(ctx, st, p) {
 		const h = p.hit;
 		if (!h || !(h.kind === 'edge' || h.kind === 'point') || !pickPiece(ctx, st, h.pieceKey)) return false;
-		st.target = h.local;
+		st.target = pickedPoint(ctx, st.pieceKey, h.local, 'distance');
 		return true;
 	},
 	move(ctx, st, p) {
 		if (!st.pieceKey) return;
 		const snap = ctx.snapAt(p.world, { onlyPiece: st.pieceKey, outlineOnly: true });
 		ctx.showSnap(snap);
-		if (snap.local) st.target = snap.local;
+		if (snap.local) st.target = pickedPoint(ctx, st.pieceKey, snap.local, 'distance');
 	},
 	up: (ctx) => void ctx.showSnap(null),
 	commit(ctx, st) {

@@ -92,7 +92,7 @@ describe('notch', () => {
 	it('places one notch where the stitching line is clicked', () => {
 		const { s, st } = editing('notch');
 		clickOn(s, 'panel', { x: 200, y: 120 });
-		expect(st.target).toEqual({ x: 200, y: 120 });
+		expect(st.target).toMatchObject({ x: 200, y: 120 });
 		s.commitMove();
 		expect(s.docs.piece('panel')!.geometry.notches).toHaveLength(1);
 	});

@@ -1,14 +1,16 @@
-import { vecDistance, type Vec } from '$lib/geometry';
+import { vecDistance } from '$lib/geometry';
 import { pointOnFold } from '$lib/pattern/operations/still-side';
 import { dartNear } from '../hit';
 import { seamsOf, seamTargetText } from '../pivot-target';
+import type { AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
+import { pickedPoint } from './anchored';
 import { dartApex, dartStart, deg, mm, pickDart, movePiece, stepPreview, type OnDart } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type OverlayItem } from './types';
 
 export interface PivotState extends OnDart {
 	id: 'pivot';
-	/** Where the dart opens (piece coordinates). */
-	target: Vec | null;
+	/** Where the dart opens (piece coordinates), with its anchor. */
+	target: AnchoredPoint | null;
 	dragging: boolean;
 }
 
@@ -43,7 +45,7 @@ export const pivotMove: MoveDef<PivotState> = {
 			return true;
 		}
 		if (h.kind === 'edge' || h.kind === 'point') {
-			st.target = h.local;
+			st.target = pickedPoint(ctx, st.pieceKey, h.local);
 			st.dragging = true;
 			return true;
 		}
@@ -53,7 +55,7 @@ export const pivotMove: MoveDef<PivotState> = {
 		if (!st.dragging || !st.pieceKey) return;
 		const snap = ctx.snapAt(p.world, { onlyPiece: st.pieceKey, outlineOnly: true });
 		ctx.showSnap(snap);
-		if (snap.local) st.target = snap.local;
+		if (snap.local) st.target = pickedPoint(ctx, st.pieceKey, snap.local);
 	},
 	up(ctx, st, _p, moved) {
 		st.dragging = false;

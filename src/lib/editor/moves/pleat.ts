@@ -1,5 +1,6 @@
 import type { Vec } from '$lib/geometry';
 import type { MoveContext } from './context';
+import { anchoredOn } from './anchored';
 import { dartApex, dartStart, deg, distanceAlongOutline, mm, pickDart, movePiece, pointAlongOutline, stepPreview, type OnDart } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type OverlayItem } from './types';
 
@@ -25,7 +26,8 @@ export function pleatPoints(ctx: MoveContext, st: PleatState): Vec[] | null {
 	const first = st.firstAtMm;
 	const from = first >= 0 ? w.leg2End : w.leg1End;
 	const dir = first >= 0 ? 1 : -1;
-	return Array.from({ length: n }, (_, i) => pointAlongOutline(piece.outline, from, first + dir * i * st.spacingMm));
+	// each with its anchor: the same fraction of its seam on every size
+	return Array.from({ length: n }, (_, i) => anchoredOn(piece, pointAlongOutline(piece.outline, from, first + dir * i * st.spacingMm)));
 }
 
 function pleatStep(ctx: MoveContext, st: PleatState) {

@@ -6,6 +6,7 @@ import type { Piece } from '$lib/pattern/piece-schema';
 import { reshapeChanges, reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
 import { editorApply } from '../ops';
 import { areaText, lengthReadoutText, lengthDifferenceText } from '$lib/pattern/measurements/units';
+import { anchoredMove } from './anchored';
 import { editableSelected, movePiece, type OnPiece } from './common';
 import type { MoveContext } from './context';
 import { emptyPreview, NOTHING, outcome, type CommitOutcome, type MoveDef, type MovePreview, type OverlayItem, type Readout } from './types';
@@ -171,7 +172,7 @@ export const reshapeMove: MoveDef<ReshapeState> = {
 export function reshapeApply(ctx: MoveContext, st: ReshapeState, declared: readonly LedgerEntry[]): CommitOutcome {
 	const run = reshapeRun(ctx, st);
 	if (!run || !st.pieceKey) return NOTHING;
-	return outcome(ctx.apply(st.pieceKey, { op: 'reshape', params: { moves: run.moves } }, { label: `${ctx.piece(st.pieceKey)?.name}: reshaped by hand`, declared }));
+	return outcome(ctx.apply(st.pieceKey, { op: 'reshape', params: { moves: run.moves.map((m) => anchoredMove(run.piece, m)) } }, { label: `${ctx.piece(st.pieceKey)?.name}: reshaped by hand`, declared }));
 }
 
 function reshapePreview(ctx: MoveContext, st: ReshapeState): MovePreview | null {

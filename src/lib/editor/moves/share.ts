@@ -1,11 +1,13 @@
-import { vecDistance, type Vec } from '$lib/geometry';
+import { vecDistance } from '$lib/geometry';
+import type { AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
+import { pickedPoint } from './anchored';
 import { dartApex, dartStart, deg, mm, pickDart, movePiece, stepPreview, type OnDart } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type OverlayItem } from './types';
 
 export interface ShareState extends OnDart {
 	id: 'share';
 	/** Where the parts of the dart open, and each part's share of its angle. */
-	points: Vec[];
+	points: AnchoredPoint[];
 	fractions: number[];
 	/** The share left in the dart. */
 	keepFraction: number;
@@ -18,7 +20,7 @@ export function equalise(fr: readonly number[], keep: number): number[] {
 	return n ? fr.map(() => (1 - keep) / n) : [];
 }
 
-export function sharePartAdd(st: ShareState, at: Vec) {
+export function sharePartAdd(st: ShareState, at: AnchoredPoint) {
 	st.points = [...st.points, at];
 	st.fractions = equalise([...st.fractions, 0], st.keepFraction);
 }
@@ -58,7 +60,7 @@ export const shareMove: MoveDef<ShareState> = {
 			st.dragIndex = i;
 			return true;
 		}
-		sharePartAdd(st, p.hit.local);
+		sharePartAdd(st, pickedPoint(ctx, st.pieceKey, p.hit.local));
 		st.dragIndex = st.points.length - 1;
 		return true;
 	},
@@ -66,7 +68,10 @@ export const shareMove: MoveDef<ShareState> = {
 		if (st.dragIndex < 0 || !st.pieceKey) return;
 		const snap = ctx.snapAt(p.world, { onlyPiece: st.pieceKey, outlineOnly: true });
 		ctx.showSnap(snap);
-		if (snap.local) st.points = st.points.map((q, i) => (i === st.dragIndex ? snap.local! : q));
+		if (snap.local) {
+			const at = pickedPoint(ctx, st.pieceKey, snap.local);
+			st.points = st.points.map((q, i) => (i === st.dragIndex ? at : q));
+		}
 	},
 	up(ctx, st) {
 		st.dragIndex = -1;

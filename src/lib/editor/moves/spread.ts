@@ -1,11 +1,13 @@
-import { vecDistance, type Vec } from '$lib/geometry';
+import { vecDistance } from '$lib/geometry';
+import type { AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
+import { pickedPoint } from './anchored';
 import { editableSelected, mm, movePiece, stepPreview, type OnPiece } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type OverlayItem } from './types';
 
 export interface SpreadState extends OnPiece {
 	id: 'spread';
 	/** Where the slash starts on the edge that spreads, and where it ends (the hinge, or the opposite edge). */
-	ends: Vec[];
+	ends: AnchoredPoint[];
 	/** Hinged: one edge gets longer; parallel: the slash goes right through. */
 	slash: 'hinged' | 'parallel';
 	widthMm: number;
@@ -38,8 +40,8 @@ export const spreadMove: MoveDef<SpreadState> = {
 		if (st.ends.length === 0 || st.ends.length >= 2 || h.pieceKey !== st.pieceKey) {
 			st.pieceKey = h.pieceKey;
 			ctx.select(h.pieceKey);
-			st.ends = [h.local];
-		} else st.ends = [...st.ends, h.local];
+			st.ends = [pickedPoint(ctx, st.pieceKey, h.local)];
+		} else st.ends = [...st.ends, pickedPoint(ctx, st.pieceKey, h.local)];
 		return false;
 	},
 	commit(ctx, st) {

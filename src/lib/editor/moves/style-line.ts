@@ -1,5 +1,6 @@
 import { vecDistance, vecLerp, type Vec } from '$lib/geometry';
 import type { Piece } from '$lib/pattern/piece-schema';
+import { anchoredOn, pickedPoint } from './anchored';
 import { editableSelected, localOf, mm, movePiece, stepPreview, type OnPiece } from './common';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type OverlayItem } from './types';
 
@@ -14,7 +15,9 @@ export function styleLineStep(piece: Piece | null, h: readonly Vec[]) {
 	if (h.length !== 4 || !piece) return null;
 	let n = piece.internalLines.length + 1;
 	while (piece.internalLines.some((l) => l.id === `style-${n}`)) n++;
-	return { op: 'style_line', params: { id: `style-${n}`, label: 'style line', path: { segments: [{ kind: 'cubic', p0: h[0], p1: h[1], p2: h[2], p3: h[3] }] } } };
+	// the ends carry the anchors they were picked with; the handles are offsets from the nearest landmark
+	const [p0, p1, p2, p3] = h.map((q) => anchoredOn(piece, q));
+	return { op: 'style_line', params: { id: `style-${n}`, label: 'style line', path: { segments: [{ kind: 'cubic', p0, p1, p2, p3 }] } } };
 }
 
 export const straightHandles = (a: Vec, b: Vec): Vec[] => [a, vecLerp(a, b, 1 / 3), vecLerp(a, b, 2 / 3), b];
@@ -50,11 +53,11 @@ export const styleLineMove: MoveDef<StyleLineState> = {
 		if (h.length === 0) {
 			st.pieceKey = hit.pieceKey;
 			ctx.select(hit.pieceKey);
-			st.handles = [hit.local];
+			st.handles = [pickedPoint(ctx, hit.pieceKey, hit.local)];
 			return false;
 		}
 		if (hit.pieceKey !== st.pieceKey) return false;
-		st.handles = straightHandles(h[0], hit.local);
+		st.handles = straightHandles(h[0], pickedPoint(ctx, st.pieceKey, hit.local));
 		return false;
 	},
 	move(ctx, st, p) {
@@ -64,7 +67,7 @@ export const styleLineMove: MoveDef<StyleLineState> = {
 		if (i === 0 || i === 3) {
 			const snap = ctx.snapAt(p.world, { onlyPiece: st.pieceKey, outlineOnly: true });
 			ctx.showSnap(snap);
-			q = snap.local ?? localOf(ctx, st, p.world);
+			q = pickedPoint(ctx, st.pieceKey, snap.local ?? localOf(ctx, st, p.world));
 		} else {
 			// a handle snaps to 15° steps from the end it belongs to
 			const end = st.handles[i === 1 ? 0 : 3];
