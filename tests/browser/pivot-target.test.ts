@@ -1,5 +1,5 @@
 // The pivot form: the new opening typed as a point on a named seam, previewed while typing, never a
-// negative length; nothing opens on the fold (built app, Debian's Chromium).
+// negative length, and said as what it is anchored to; nothing opens on the fold (built app, Debian's Chromium).
 import { describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import type { Piece } from '../../src/lib/pattern/piece-schema';
@@ -44,8 +44,11 @@ describe('pivot target on a named seam', () => {
 		expect(await readouts.textContent()).not.toMatch(/[−-]\d/);
 		await page.fill('#pivot-distance', '60');
 		await expect.poll(() => readouts.textContent()).toContain('side seam, 60.0 mm from the armhole end');
+		// what the opening is anchored to (what a size run finds it by): the distance typed, from that end
+		await expect.poll(() => page.getByTestId('anchor-line').textContent()).toMatch(/^New opening anchored to: 60\.0 mm (from the underarm along the side seam|along the side seam from the armhole)$/);
 		await page.click('button:has-text("Apply")');
 		await expect.poll(() => page.locator('[data-testid="recipe"] li').first().textContent()).toContain('Pivot');
+		expect(await page.getByTestId('recipe-anchors').first().textContent()).toMatch(/^at 60\.0 mm (from the underarm along the side seam|along the side seam from the armhole)$/);
 		const key = await firstKey(page);
 		const geometry = (await page.evaluate((k) => window.dartelierEditor!.geometry(k), key)) as Piece;
 		expect(geometry.darts.find((d) => d.id === 'shoulder-dart')!.leg1End.x).toBeGreaterThan(200);

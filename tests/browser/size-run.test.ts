@@ -43,6 +43,13 @@ describe('size runs', () => {
 		// aligned elsewhere
 		await page.locator('[data-testid="nest-anchor"]').selectOption('side waist');
 		expect(await drawing.getAttribute('aria-label')).toMatch(/aligned at the side waist/);
+		// or at a place along a seam, at a per cent of its length
+		await page.locator('[data-testid="nest-anchor"]').selectOption({ label: 'along the side seam' });
+		await page.locator('[data-testid="nest-along"]').fill('40');
+		await expect.poll(() => drawing.getAttribute('aria-label')).toMatch(/aligned at the side seam, 40 % from the /);
+		expect(await drawing.locator('path[data-size]').count()).toBe(3);
+		await page.locator('[data-testid="nest-anchor"]').selectOption('side waist');
+		await expect.poll(() => drawing.getAttribute('aria-label')).toMatch(/aligned at the side waist/);
 
 		// the table: the base and three sizes, the measurements used and the piece's area and seams
 		const table = page.locator('[data-testid="size-table"] table');

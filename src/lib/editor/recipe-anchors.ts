@@ -40,7 +40,7 @@ export function stepAnchorsGiven(params: unknown): Anchor[] {
 }
 
 /** For each step of a recipe made on `base`: the words for the anchors of its points (each said once, at most `most`). */
-export function recipeAnchorTexts(base: Piece, steps: readonly RecipeStepData[], length: (mm: number) => string, most = 4): string[][] {
+export function recipeAnchorTexts(base: Piece | null, steps: readonly RecipeStepData[], length: (mm: number) => string, most = 4): string[][] {
 	let piece: Piece | null = base;
 	return steps.map((step) => {
 		const before = piece;

@@ -39,7 +39,7 @@ function lastStep(s: ReturnType<typeof editorWith>, key: string) {
 	const p = s.docs.piece(key)!;
 	const steps = p.steps;
 	const step = steps[steps.length - 1];
-	let before = p.base;
+	let before = p.base!;
 	for (const earlier of steps.slice(0, -1)) {
 		const r = editorApply(before, earlier);
 		if (r.ok) before = r.piece;

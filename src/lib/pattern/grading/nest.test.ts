@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { anchorBody, anchorResolve, type Anchor } from '../anchors/anchor';
+import { anchorBody, anchorBodyLike, anchorResolve, type Anchor } from '../anchors/anchor';
 import { pieceLandmarks } from '../anchors/landmarks';
 import { vecDistance, vecSub } from '../kernel';
 import { ASTM_D5585_SOURCE, astmD5585MeasurementSet, astmD5585Sizes, measurementsMm } from '../measurements';
 import { demoStyleRecipe } from './demo-recipe';
 import { nestAlign, nestAnchorDefault, nestIncrements, nestLabels, nestLandmarkNames, type NestSize } from './nest';
+import { nestAnchorChoices, nestAnchorOf, nestAnchorWords, nestChoiceDefault } from './nest-anchors';
 import { sizeResult } from './size-result';
 
 const recipe = demoStyleRecipe();
@@ -49,6 +50,29 @@ describe('nest of a size run', () => {
 			if (!own.ok) throw new Error(own.message);
 			expect(vecDistance({ x: own.point.x + s.offset.x, y: own.point.y + s.offset.y }, nest.anchorPoint)).toBeLessThan(1e-9);
 		}
+	});
+
+	it('offers every landmark and a place along every seam to align at; each choice, aligned, puts its point of every size on one point', () => {
+		const base = baseOf('front-block');
+		const choices = nestAnchorChoices(base);
+		expect(nestChoiceDefault(base)).toBe('landmark:centre front waist');
+		expect(choices.filter((c) => c.group === 'landmark').map((c) => c.label)).toContain('centre front waist');
+		const edges = choices.filter((c) => c.group === 'edge');
+		expect(edges.map((c) => c.label)).toContain('along the side seam');
+		for (const c of [...edges, choices[0]]) {
+			const anchor = nestAnchorOf(c.value, 0.4)!;
+			const nest = nestAlign(base, sizesOf('front-block'), anchor);
+			if (!nest.ok) throw new Error(nest.message);
+			expect(nest.failures, c.label).toEqual([]);
+			for (const s of nest.shapes) {
+				const size = sizesOf('front-block').find((x) => x.key === s.key)!.piece;
+				const own = anchorResolve(anchorBodyLike(size, anchorBody(base)), anchor);
+				if (!own.ok) throw new Error(own.message);
+				expect(vecDistance({ x: own.point.x + s.offset.x, y: own.point.y + s.offset.y }, nest.anchorPoint), `${c.label} ${s.name}`).toBeLessThan(1e-9);
+			}
+		}
+		expect(nestAnchorOf('edge:side seam', 0.4)).toEqual({ kind: 'edge', edge: 'side seam', from: 'start', fraction: 0.4 });
+		expect(nestAnchorWords(base, nestAnchorOf('edge:side seam', 0.4)!)).toMatch(/^the side seam, 40 % from the /);
 	});
 
 	it('measures increments equal to the landmark distances computed on each size by itself (relative to its own anchor)', () => {
