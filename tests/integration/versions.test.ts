@@ -2,6 +2,8 @@
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
+import { anchorBody } from '../../src/lib/pattern/anchors/anchor';
+import { anchoredPoint } from '../../src/lib/pattern/anchors/anchor-pick';
 import { pivot } from '../../src/lib/pattern/operations/pivot';
 import { reshape } from '../../src/lib/pattern/verify/reshape';
 import { reshapeChanges, reshapeDeclaredEntries } from '../../src/lib/pattern/reshape-declaration';
@@ -99,6 +101,26 @@ describe('saving versions', () => {
 		expect(body.error.code).toBe('replay_mismatch');
 		expect(body.error.message).toMatch(/not what its recipe gives/);
 		expect((await headOf(pieceId)).headNumber).toBe(1);
+	});
+
+	it('stores a step\'s point with the anchor the editor read it as, and refuses (422) an anchor that says another place than its point', async () => {
+		const { pieceId, v1 } = await styleWithPiece();
+		const block = frontBodiceBlock();
+		const to = anchoredPoint(anchorBody(block), { x: 235 - 10 / 3, y: 300 });
+		expect(to.anchor).toMatchObject({ kind: 'edge', edge: 'side seam' });
+		const params = { dartId: 'shoulder-dart', to };
+		const r = pivot(block, params);
+		if (!r.ok) throw new Error(r.error.message);
+		const lying = { ...params, to: { ...to, anchor: { kind: 'landmark', name: 'side waist' } } };
+		const refused = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'anchored elsewhere', geometry: r.piece, recipe: [{ op: 'pivot', params: lying }] });
+		expect(refused.status).toBe(422);
+		expect((await refused.json()).error.message).toMatch(/^Step 1 \(pivot\): the point .* is anchored at the side waist, which is [\d.]+ mm away from it/);
+		expect((await headOf(pieceId)).headNumber).toBe(1);
+		const saved = await c.api('POST', `/api/studios/${studioId}/pieces/${pieceId}/versions`, { baseVersionId: v1, message: 'anchored on the side seam', geometry: r.piece, recipe: [{ op: 'pivot', params }] });
+		expect(saved.status).toBe(201);
+		const id = (await saved.json()).version.id;
+		const v = await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions/${id}`)).json();
+		expect(v.version.recipe[0].params.to.anchor).toEqual(to.anchor);
 	});
 
 	it('refuses (422) an unbalanced ledger with an explanation naming the apex and the degrees', async () => {
