@@ -3,6 +3,9 @@ import { blockDraft, EASE_DEFAULT } from '../drafting';
 import { vecDistance, type Vec } from '../kernel';
 import { astmD5585MeasurementSet, measurementsMm } from '../measurements';
 import { seamPointAt } from '../piece-seams';
+import { pathFromPolyline } from '../kernel';
+import { rectanglePiece } from '../panels/fixtures/simple-pieces';
+import { changeRecompute } from '../recipe/change';
 import { recipeStepApply } from '../recipe/registry';
 import { versionVerify } from '../verify/version-verify';
 import { anchorBody, anchorResolve, anchorSchema, type Anchor, type AnchorBody } from './anchor';
@@ -105,5 +108,28 @@ describe('a save checks the anchors sent with a step', () => {
 		if (!r.ok) return;
 		const v = versionVerify(piece, r.piece, [lying], recipeStepApply);
 		expect(!v.ok && v.problem.message).toMatch(/^Step 1 \(pivot\): the point .* is anchored at the side waist/);
+	});
+});
+
+describe('a style change checks the anchors of its steps', () => {
+	const rect = rectanglePiece('rect');
+	const body = anchorBody(rect);
+	const path = (anchorAt: (p: Vec) => unknown) => {
+		const p = pathFromPolyline([{ x: 0, y: 120 }, { x: 200, y: 120 }]);
+		return { segments: p.segments.map((seg) => ({ ...seg, p0: { ...seg.p0, anchor: anchorAt(seg.p0) } })) };
+	};
+
+	it('recomputes a separate whose cut line starts at its anchor', () => {
+		const r = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1' }], params: { path: path((p) => anchoredPoint(body, p).anchor) } }]);
+		expect(r.ok).toBe(true);
+	});
+
+	it('refuses a separate whose cut line says it starts elsewhere, and a source recipe step whose anchor is wrong', () => {
+		const far = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1' }], params: { path: path(() => ({ kind: 'edge', edge: body.seams[0].name, fraction: 1 })) } }]);
+		expect(!far.ok && far.code).toBe('replay_refused');
+		expect(!far.ok && far.message).toMatch(/^Step 1 \(separate\): the point \(0\.0, 120\.0\) is anchored at /);
+		const notch = { op: 'notch', params: { id: 'n1', at: { x: 200, y: 60, anchor: { kind: 'landmark', name: body.landmarks[0].name } }, count: 1 } };
+		const src = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1', recipe: [notch] }], params: { path: path((p) => anchoredPoint(body, p).anchor) } }]);
+		expect(!src.ok && src.message).toMatch(/step 1 \(notch\) made on source 1: the point \(200\.0, 60\.0\) is anchored at /);
 	});
 });
