@@ -9,6 +9,7 @@ import { editorApply } from '../ops';
 import { recipeAnchorTexts, stepAnchorsGiven } from '../recipe-anchors';
 import { reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
 import { reshapeApply, reshapeRun } from './reshape';
+import type { SeamPairInfo } from '../api';
 import type { MoveStateOf } from './registry';
 import type { MoveId } from './types';
 
@@ -147,5 +148,22 @@ describe('points of piece moves carry their anchors', () => {
 		expect(r.problems).toEqual([]);
 		expect(r.verified).toBe(true);
 		expect(r.words[1]).toMatch(/^offset 10\.0 mm down from the /);
+	});
+});
+
+describe('points of a trued seam carry their anchors', () => {
+	it('true seam: the end moved is taken by its landmark, where it goes as an offset from it', () => {
+		const pair: SeamPairInfo = { id: 'side', label: 'side seam', aPieceId: 'left', aEdge: { from: { x: 100, y: 0 }, to: { x: 100, y: 300 } }, bPieceId: 'right', bEdge: { from: { x: 0, y: 305 }, to: { x: 0, y: 0 } }, allowedEaseMm: 0, toleranceMm: 0.5 };
+		const s = editorWith([{ geometry: rectanglePiece('left', 100, 300), key: 'left' }, { geometry: rectanglePiece('right', 100, 305), key: 'right', offset: { x: 100, y: 0 } }], [pair]);
+		s.setMove('true_seam');
+		(s.move as MoveStateOf<'true_seam'>).adjust = 'b-end';
+		s.commitMove();
+		s.selection.piece('right');
+		const r = lastStep(s, 'right');
+		expect(r.op).toBe('reshape');
+		expect(r.anchors.length).toBeGreaterThan(0);
+		expect(r.anchors.filter((a) => a.kind === 'offset').length).toBe(r.anchors.length / 2);
+		expect(r.problems).toEqual([]);
+		expect(r.verified).toBe(true);
 	});
 });

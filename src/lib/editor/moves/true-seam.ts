@@ -5,6 +5,7 @@ import { reshapeChanges } from '$lib/pattern/reshape-declaration';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { lengthReadoutText, lengthDifferenceText } from '$lib/pattern/measurements/units';
 import type { SeamEdit } from '../doc';
+import { anchoredMove } from './anchored';
 import type { MoveContext } from './context';
 import { chosenPair, firstUsablePair, selectedPairOr, opPieces, pairOverlay, pathEnd, pathStart, seamPickDown, type SeamPick } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem } from './types';
@@ -101,7 +102,9 @@ export const trueSeamMove: MoveDef<TrueSeamState> = {
 				})
 			);
 		const label = `${ctx.piece(key)?.name}: seam "${run.c.label}" trued`;
-		return outcome(ctx.apply(key, { op: 'reshape', params: { moves } }, { label, declared, seamEdit: storedEndMoved(ctx, st, run) }), 'select');
+		// each point moved taken by its anchor on the piece, where it goes as an offset from it (as Reshape stores it)
+		const anchored = moves.map((m) => anchoredMove(run.before[side], m));
+		return outcome(ctx.apply(key, { op: 'reshape', params: { moves: anchored } }, { label, declared, seamEdit: storedEndMoved(ctx, st, run) }), 'select');
 	},
 	preview(ctx, st): MovePreview | null {
 		const run = trueRun(ctx, st);
