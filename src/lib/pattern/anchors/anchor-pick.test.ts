@@ -10,11 +10,12 @@ import { recipeStepApply } from '../recipe/registry';
 import { versionVerify } from '../verify/version-verify';
 import { anchorBody, anchorResolve, anchorSchema, type Anchor, type AnchorBody } from './anchor';
 import { stepAnchorProblems } from './anchor-check';
+import { stepParamsCarry } from './step-anchors';
 import { anchoredPoint, anchorPick } from './anchor-pick';
 import { anchorText } from './anchor-text';
 
 // The front block drafted from ASTM D5585-11e1 Table 1, curvy size 10 (reference-values row 1, C).
-const front = () => blockDraft(measurementsMm(astmD5585MeasurementSet('curvy', '10')), EASE_DEFAULT, { bustDart: 'shoulder' }).front;
+const front = (size: '10' | '14' = '10') => blockDraft(measurementsMm(astmD5585MeasurementSet('curvy', size)), EASE_DEFAULT, { bustDart: 'shoulder' }).front;
 const mm = (v: number) => `${v.toFixed(1)} mm`;
 
 function onSeam(body: AnchorBody, name: string, from: 'start' | 'end', d: number): Vec {
@@ -131,5 +132,22 @@ describe('a style change checks the anchors of its steps', () => {
 		const notch = { op: 'notch', params: { id: 'n1', at: { x: 200, y: 60, anchor: { kind: 'landmark', name: body.landmarks[0].name } }, count: 1 } };
 		const src = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1', recipe: [notch] }], params: { path: path((p) => anchoredPoint(body, p).anchor) } }]);
 		expect(!src.ok && src.message).toMatch(/step 1 \(notch\) made on source 1: the point \(200\.0, 60\.0\) is anchored at /);
+	});
+});
+
+describe('anchors the editor recorded, found again on another size', () => {
+	it('keeps a notch picked by distance at that distance from the same end, and a pivot picked by fraction at that fraction', () => {
+		const base = anchorBody(front('10'));
+		const bigger = anchorBody(front('14'));
+		const notch = anchoredPoint(base, onSeam(base, 'shoulder', 'start', 30), { edgeBy: 'distance' });
+		const side = base.seams.find((x) => x.name === 'waist')!;
+		const to = anchoredPoint(base, onSeam(base, 'waist', 'start', side.lengthMm * 0.4));
+		const r = stepParamsCarry({ notch, to }, [base.piece], [bigger.piece], false);
+		if (!r.ok) throw new Error(r.message);
+		const moved = r.params as { notch: Vec; to: Vec };
+		expect(vecDistance(moved.notch, onSeam(bigger, 'shoulder', 'start', 30))).toBeLessThan(1e-6);
+		const bigSide = bigger.seams.find((x) => x.name === 'waist')!;
+		expect(vecDistance(moved.to, onSeam(bigger, 'waist', 'start', bigSide.lengthMm * 0.4))).toBeLessThan(1e-6);
+		expect(Math.abs(bigSide.lengthMm - side.lengthMm)).toBeGreaterThan(5);
 	});
 });
