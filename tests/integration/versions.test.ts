@@ -104,7 +104,7 @@ describe('saving versions', () => {
 	});
 
 	it('stores a step\'s point with the anchor the editor read it as, and refuses (422) an anchor that says another place than its point', async () => {
-		const { pieceId, v1 } = await styleWithPiece();
+		const { styleId, pieceId, v1 } = await styleWithPiece();
 		const block = frontBodiceBlock();
 		const to = anchoredPoint(anchorBody(block), { x: 235 - 10 / 3, y: 300 });
 		expect(to.anchor).toMatchObject({ kind: 'edge', edge: 'side seam' });
@@ -121,6 +121,10 @@ describe('saving versions', () => {
 		const id = (await saved.json()).version.id;
 		const v = await (await c.api('GET', `/api/studios/${studioId}/pieces/${pieceId}/versions/${id}`)).json();
 		expect(v.version.recipe[0].params.to.anchor).toEqual(to.anchor);
+		// the version's page says it in words, beside the recipe
+		const page = await c.get(`/studios/${studioId}/styles/${styleId}/pieces/${pieceId}/versions/${id}`);
+		expect(page.status).toBe(200);
+		expect(await page.text()).toMatch(/Step 1 \(pivot\) at side seam, [\d.]+ % from the /);
 	});
 
 	it('refuses (422) an unbalanced ledger with an explanation naming the apex and the degrees', async () => {

@@ -1,11 +1,13 @@
 import { anchorSchema, type Anchor } from '$lib/pattern/anchors/anchor';
 import { anchorPick } from '$lib/pattern/anchors/anchor-pick';
-import { anchorText } from '$lib/pattern/anchors/anchor-text';
+import { anchorText, stepAnchorsGiven } from '$lib/pattern/anchors/anchor-text';
 import type { Vec } from '$lib/geometry';
 import type { Piece } from '$lib/pattern/piece-schema';
 import type { RecipeStepData } from '$lib/pattern/verify/version-verify';
 import { bodyOf } from './anchor-body';
 import { editorApply } from './ops';
+
+export { stepAnchorsGiven };
 
 /**
  * What the points of a piece's steps are anchored to, said as the editor shows it: for a point, its own
@@ -19,24 +21,6 @@ export function pointAnchorText(piece: Piece, p: Vec & { anchor?: unknown }, len
 	const given = p.anchor !== undefined ? anchorSchema.safeParse(p.anchor) : null;
 	const anchor: Anchor | null = given?.success ? given.data : (anchorPick(body, p)?.anchor ?? null);
 	return anchor ? anchorText(anchor, body, length) : null;
-}
-
-/** The anchors a step's parameters carry (points without one are left out), in the order they come. */
-export function stepAnchorsGiven(params: unknown): Anchor[] {
-	const out: Anchor[] = [];
-	const visit = (v: unknown) => {
-		if (Array.isArray(v)) return v.forEach(visit);
-		if (typeof v !== 'object' || v === null) return;
-		const o = v as Record<string, unknown>;
-		if (typeof o.x === 'number' && typeof o.y === 'number' && o.anchor !== undefined) {
-			const a = anchorSchema.safeParse(o.anchor);
-			if (a.success) out.push(a.data);
-			return;
-		}
-		Object.values(o).forEach(visit);
-	};
-	visit(params);
-	return out;
 }
 
 /** For each step of a recipe made on `base`: the words for the anchors of its points (each said once, at most `most`). */

@@ -129,7 +129,7 @@ describe('a style change checks the anchors of its steps', () => {
 		const far = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1' }], params: { path: path(() => ({ kind: 'edge', edge: body.seams[0].name, fraction: 1 })) } }]);
 		expect(!far.ok && far.code).toBe('replay_refused');
 		expect(!far.ok && far.message).toMatch(/^Step 1 \(separate\): the point \(0\.0, 120\.0\) is anchored at /);
-		const notch = { op: 'notch', params: { id: 'n1', at: { x: 200, y: 60, anchor: { kind: 'landmark', name: body.landmarks[0].name } }, count: 1 } };
+		const notch = { op: 'notch' as const, params: { id: 'n1', at: { x: 200, y: 60, anchor: { kind: 'landmark', name: body.landmarks[0].name } }, count: 1 } };
 		const src = changeRecompute(new Map([['piece-1', rect]]), [{ op: 'separate', sources: [{ pieceId: 'piece-1', recipe: [notch] }], params: { path: path((p) => anchoredPoint(body, p).anchor) } }]);
 		expect(!src.ok && src.message).toMatch(/step 1 \(notch\) made on source 1: the point \(200\.0, 60\.0\) is anchored at /);
 	});

@@ -1,5 +1,5 @@
 import { vecDistance } from '../kernel';
-import type { Anchor, AnchorBody } from './anchor';
+import { anchorSchema, type Anchor, type AnchorBody } from './anchor';
 
 /**
  * What a point is anchored to, in the trade's words and in the person's unit (`length` formats mm):
@@ -51,4 +51,22 @@ export function anchorText(a: Anchor, body: AnchorBody | null, length: (mm: numb
 	if (Math.abs(a.dyMm) >= 0.05) parts.push(`${length(Math.abs(a.dyMm))} ${a.dyMm > 0 ? 'down' : 'up'}`);
 	const of = anchorText(a.of, body, length);
 	return parts.length ? `offset ${parts.join(', ')} from the ${of}` : of;
+}
+
+/** The anchors a step's parameters carry (points without one are left out), in the order they come. */
+export function stepAnchorsGiven(params: unknown): Anchor[] {
+	const out: Anchor[] = [];
+	const visit = (v: unknown) => {
+		if (Array.isArray(v)) return v.forEach(visit);
+		if (typeof v !== 'object' || v === null) return;
+		const o = v as Record<string, unknown>;
+		if (typeof o.x === 'number' && typeof o.y === 'number' && o.anchor !== undefined) {
+			const a = anchorSchema.safeParse(o.anchor);
+			if (a.success) out.push(a.data);
+			return;
+		}
+		Object.values(o).forEach(visit);
+	};
+	visit(params);
+	return out;
 }

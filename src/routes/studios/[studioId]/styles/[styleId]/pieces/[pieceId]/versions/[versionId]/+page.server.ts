@@ -1,5 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
+import { stepAnchorsGiven } from '$lib/pattern/anchors/anchor-text';
 import { pieceSchema } from '$lib/pattern/piece-schema';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
@@ -43,7 +44,9 @@ export const load: PageServerLoad = async (event) => {
 			geometry: pieceSchema.parse(v!.geometry),
 			checks: (v!.checks ?? []) as { code: string; passed: boolean; message: string; warning?: boolean }[],
 			ledger: metrics?.ledger ?? [],
-			recipe: ((v!.recipe ?? []) as { op: string }[]).map((s) => s.op)
+			recipe: ((v!.recipe ?? []) as { op: string }[]).map((s) => s.op),
+			// what each step's points are anchored to (what a size run finds them by), as stored with the step
+			recipeAnchors: ((v!.recipe ?? []) as { params?: unknown }[]).map((s) => stepAnchorsGiven(s.params))
 		},
 		head: head ? { id: head.id, number: head.number } : null,
 		versions,
