@@ -1,4 +1,6 @@
-import type { Vec } from '$lib/geometry';
+import { vecDistance, type Vec } from '$lib/geometry';
+import { anchorResolve } from '$lib/pattern/anchors/anchor';
+import { anchorInferAmong } from '$lib/pattern/anchors/anchor-infer';
 import { anchoredPoint, anchorOffsetFrom, type AnchoredPoint } from '$lib/pattern/anchors/anchor-pick';
 import type { Piece } from '$lib/pattern/piece-schema';
 import { bodyOf } from '../anchor-body';
@@ -29,4 +31,17 @@ export function anchoredMove(piece: Piece, m: { from: Vec; to: Vec }): { from: A
 	const a = from.anchor;
 	const off = a && a.kind !== 'offset' ? anchorOffsetFrom(body, a, m.to) : null;
 	return { from, to: off ? { x: off.point.x, y: off.point.y, anchor: off.anchor } : anchoredPoint(body, m.to) };
+}
+
+/**
+ * A point of a step spanning pieces (a carry's style line) with its anchor among the sources, in their
+ * order (the anchor names its source): read by the rules a size run reads a point without one, kept only
+ * where it gives the point again, and the point left as it is (the pieces made from it do not move).
+ */
+export function anchoredAmong(pieces: readonly Piece[], p: Vec): AnchoredPoint {
+	const bodies = pieces.map(bodyOf);
+	const a = anchorInferAmong(bodies, p, bodies.map((_, k) => k));
+	const body = a ? bodies[(a.kind === 'offset' ? a.of.piece : a.piece) ?? 0] : undefined;
+	const r = a && body ? anchorResolve(body, a) : null;
+	return a && r?.ok && vecDistance(r.point, p) < 1e-6 ? { x: p.x, y: p.y, anchor: a } : { x: p.x, y: p.y };
 }

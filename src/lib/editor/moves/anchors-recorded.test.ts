@@ -10,6 +10,8 @@ import { recipeAnchorTexts, stepAnchorsGiven } from '../recipe-anchors';
 import { reshapeDeclaredEntries } from '$lib/pattern/reshape-declaration';
 import { reshapeApply, reshapeRun } from './reshape';
 import type { SeamPairInfo } from '../api';
+import { twoPanelWedge } from '$lib/pattern/panels/fixtures/two-panel-wedge';
+import { changeRecompute } from '$lib/pattern/recipe/change';
 import type { MoveStateOf } from './registry';
 import type { MoveId } from './types';
 
@@ -165,5 +167,26 @@ describe('points of a trued seam carry their anchors', () => {
 		expect(r.anchors.filter((a) => a.kind === 'offset').length).toBe(r.anchors.length / 2);
 		expect(r.problems).toEqual([]);
 		expect(r.verified).toBe(true);
+	});
+});
+
+describe('points of a carry carry their anchors among the panels', () => {
+	it('carry: the style line’s points are anchored on the panels they lie on, and the change recomputes from its sources', () => {
+		const w = twoPanelWedge(12, 150);
+		const wl = { x: 100 - 250 * Math.tan((6 * Math.PI) / 180), y: 400 };
+		const wr = { x: 100 + 250 * Math.tan((6 * Math.PI) / 180), y: 400 };
+		const pair: SeamPairInfo = { id: 'pair-1', label: 'panel seam', aPieceId: 'left', aEdge: { from: { x: 100, y: 0 }, to: wl }, bPieceId: 'right', bEdge: { from: wr, to: { x: 100, y: 0 } }, allowedEaseMm: 0, toleranceMm: 0.5 };
+		const s = editorWith([{ geometry: w.left, key: 'left' }, { geometry: w.right, key: 'right' }], [pair]);
+		s.setMove('carry');
+		dragThrough(s, 'left', [{ x: -5, y: 150 }, { x: 100, y: 150 }, { x: 205, y: 150 }]);
+		s.commitMove();
+		const step = s.docs.doc.pendingSteps![0];
+		const anchors = stepAnchorsGiven(step.params);
+		expect(anchors).toHaveLength(4);
+		expect(anchors.every((a) => (a.kind === 'offset' ? a.of.piece : a.piece) !== undefined)).toBe(true);
+		const sources = [w.left, w.right];
+		expect(stepAnchorProblems(step.params, sources, true)).toEqual([]);
+		const rc = changeRecompute(new Map([['left', w.left], ['right', w.right]]), [{ op: 'carry', sources: [{ pieceId: 'left' }, { pieceId: 'right' }], params: step.params }]);
+		expect(rc.ok).toBe(true);
 	});
 });

@@ -2,6 +2,8 @@ import { segmentFlatten, vecDistance, vecLerp, type Path, type Vec } from '$lib/
 import { carry, type SeamPair } from '$lib/pattern/panels';
 import { docLayAsDrafted, docMerge } from '../state/doc-edits';
 import { angleText, lengthReadoutText } from '$lib/pattern/measurements/units';
+import type { Piece } from '$lib/pattern/piece-schema';
+import { anchoredAmong } from './anchored';
 import type { MoveContext } from './context';
 import { opPieces, storedPair, storedPairUsable } from './seams';
 import { emptyPreview, NOTHING, outcome, type MoveDef, type MovePreview, type OverlayItem, type Readout } from './types';
@@ -93,6 +95,11 @@ function local(ctx: MoveContext, st: CarryState, world: Vec): Vec {
 	return { x: world.x - o.x, y: world.y - o.y };
 }
 
+/** The style line as the step stores it: each point with its anchor among the panels. */
+function styleLineAnchored(pieces: readonly Piece[], line: Path): Path {
+	return { segments: line.segments.map((s) => (s.kind === 'cubic' ? { ...s, p0: anchoredAmong(pieces, s.p0), p1: anchoredAmong(pieces, s.p1), p2: anchoredAmong(pieces, s.p2), p3: anchoredAmong(pieces, s.p3) } : { ...s, p0: anchoredAmong(pieces, s.p0), p1: anchoredAmong(pieces, s.p1) })) };
+}
+
 function carryRun(ctx: MoveContext, st: CarryState) {
 	const chain = carryChain(ctx, st);
 	if (typeof chain === 'string') return { error: chain } as const;
@@ -180,7 +187,7 @@ export const carryMove: MoveDef<CarryState> = {
 		const merge = {
 			sources: chain.keys,
 			made: r.pieces,
-			step: { op: 'carry' as const, params: { seams, styleLine, fuse: st.fuse, residualAs: st.residualAs } },
+			step: { op: 'carry' as const, params: { seams, styleLine: styleLineAnchored(op.pieces, styleLine), fuse: st.fuse, residualAs: st.residualAs } },
 			label: `${chain.keys.length} panels carried into one seam — ${r.report.summary}`,
 			seamPairs: r.seamPairs,
 			seamLabel: (i: number, _a: unknown, b: { name: string }) => `style seam ${i + 1} (${b.name})`
