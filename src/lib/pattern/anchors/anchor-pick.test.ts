@@ -11,7 +11,7 @@ import { versionVerify } from '../verify/version-verify';
 import { anchorBody, anchorResolve, anchorSchema, type Anchor, type AnchorBody } from './anchor';
 import { stepAnchorProblems } from './anchor-check';
 import { stepParamsCarry } from './step-anchors';
-import { anchoredPoint, anchorPick } from './anchor-pick';
+import { anchoredPoint, anchorOffsetFrom, anchorPick } from './anchor-pick';
 import { anchorText } from './anchor-text';
 
 // The front block drafted from ASTM D5585-11e1 Table 1, curvy size 10 (reference-values row 1, C).
@@ -149,5 +149,22 @@ describe('anchors the editor recorded, found again on another size', () => {
 		const bigSide = bigger.seams.find((x) => x.name === 'waist')!;
 		expect(vecDistance(moved.to, onSeam(bigger, 'waist', 'start', bigSide.lengthMm * 0.4))).toBeLessThan(1e-6);
 		expect(Math.abs(bigSide.lengthMm - side.lengthMm)).toBeGreaterThan(5);
+	});
+
+	it('moves the corner a reshape took by its landmark on the larger size, by the same offset', () => {
+		const base = anchorBody(front('10'));
+		const bigger = anchorBody(front('14'));
+		const at = (b: AnchorBody) => b.landmarks.find((l) => l.name === 'side waist')!.point;
+		const from = anchoredPoint(base, at(base));
+		expect(from.anchor).toEqual({ kind: 'landmark', name: 'side waist' });
+		const off = anchorOffsetFrom(base, { kind: 'landmark', name: 'side waist' }, { x: at(base).x + 4, y: at(base).y + 10 })!;
+		const params = { moves: [{ from, to: { ...off.point, anchor: off.anchor } }] };
+		expect(recipeStepApply(base.piece, { op: 'reshape', params }).ok).toBe(true);
+		const r = stepParamsCarry(params, [base.piece], [bigger.piece], false);
+		if (!r.ok) throw new Error(r.message);
+		const m = (r.params as { moves: { from: Vec; to: Vec }[] }).moves[0];
+		expect(vecDistance(m.from, at(bigger))).toBeLessThan(1e-9);
+		expect(vecDistance(m.to, { x: at(bigger).x + 4, y: at(bigger).y + 10 })).toBeLessThan(1e-9);
+		expect(recipeStepApply(bigger.piece, { op: 'reshape', params: r.params }).ok).toBe(true);
 	});
 });
