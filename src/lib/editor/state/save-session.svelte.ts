@@ -14,6 +14,8 @@ export interface SaveReport {
 	readonly message: string;
 	readonly checks: SaveResult['checks'];
 	readonly warnings: SaveResult['warnings'];
+	/** Set on the pieces one style change stored together (the key of its first piece): one report for them. */
+	readonly change?: string;
 }
 
 export interface Conflict {
@@ -156,7 +158,7 @@ export class SaveSession {
 				const made = r.pieces[i];
 				const head = made.versions[made.versions.length - 1];
 				this.rekey(key, { ...p, key: made.id, base: p.geometry, baseVersionId: head.id, baseNumber: head.number, steps: [], origin: null });
-				reports.push({ pieceKey: made.id, name: p.name, number: head.number, message, checks: r.checks, warnings: r.warnings });
+				reports.push({ pieceKey: made.id, name: p.name, number: head.number, message, checks: r.checks, warnings: r.warnings, change: r.pieces[0].id });
 			}
 			docs.replace({ ...docs.doc, pendingSteps: [], pendingSeams: [] });
 			return reports;

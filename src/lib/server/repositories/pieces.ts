@@ -81,32 +81,15 @@ export interface ShownVersion {
 
 /**
  * A style's pieces, each with the version shown (null when there is none), in one query: the head
- * version joined, or with `onlySignedOff` the signed-off version of the highest number.
+ * version joined, or with `onlySignedOff` the signed-off version of the highest number. The same query
+ * as piecesOfStyleWithShownText, its JSON columns parsed.
  */
 export async function piecesOfStyleWithShown(db: DbOrTx, styleId: string, onlySignedOff: boolean): Promise<(PieceRow & { shown: ShownVersion | null })[]> {
-	const rows = await db
-		.selectFrom('pieces')
-		.leftJoinLateral(
-			(eb) => {
-				let q = eb
-					.selectFrom('piece_versions')
-					.select(['piece_versions.id', 'piece_versions.number', 'piece_versions.state', 'piece_versions.geometry', 'piece_versions.metrics', 'piece_versions.checks'])
-					.whereRef('piece_versions.piece_id', '=', 'pieces.id');
-				q = onlySignedOff
-					? q.where('piece_versions.state', '=', 'signed_off').orderBy('piece_versions.number', 'desc').limit(1)
-					: q.whereRef('piece_versions.id', '=', 'pieces.head_version_id');
-				return q.as('v');
-			},
-			(join) => join.onTrue()
-		)
-		.select([...columns, 'v.id as vId', 'v.number as vNumber', 'v.state as vState', 'v.geometry as vGeometry', 'v.metrics as vMetrics', 'v.checks as vChecks'])
-		.where('pieces.style_id', '=', styleId)
-		.orderBy('pieces.sort_order')
-		.orderBy('pieces.name')
-		.execute();
+	const rows = await piecesOfStyleWithShownText(db, styleId, onlySignedOff);
+	const parsed = (text: string | null): unknown => (text === null ? null : JSON.parse(text));
 	return rows.map(({ vId, vNumber, vState, vGeometry, vMetrics, vChecks, ...piece }) => ({
 		...piece,
-		shown: vId === null || vId === undefined ? null : { id: vId, number: vNumber!, state: vState!, geometry: vGeometry, metrics: vMetrics, checks: vChecks }
+		shown: vId === null ? null : { id: vId, number: vNumber!, state: vState!, geometry: parsed(vGeometry), metrics: parsed(vMetrics), checks: parsed(vChecks) }
 	}));
 }
 
