@@ -36,6 +36,21 @@ interface RequestOptions {
 }
 
 /** Keeps the session cookie like a browser would; never follows redirects. */
+/**
+ * fetch, sent once more when a kept-alive connection was reset before any answer came (the server closed
+ * it as idle just as the request went out: the request never reached a handler). Any other failure, or a
+ * second reset, is thrown as it is.
+ */
+async function fetchOnceMore(url: string, init: RequestInit): Promise<Response> {
+	try {
+		return await fetch(url, init);
+	} catch (e) {
+		const code = (e as { cause?: { code?: string } }).cause?.code;
+		if (code !== 'ECONNRESET' || typeof init.body === 'object') throw e;
+		return fetch(url, init);
+	}
+}
+
 export class Client {
 	session: string | null = null;
 	lastSetCookies: string[] = [];
@@ -55,7 +70,7 @@ export class Client {
 			headers.accept = 'application/json';
 			body = JSON.stringify(o.json);
 		}
-		const res = await fetch(this.base + path, { method, headers, body, redirect: 'manual', signal: o.signal });
+		const res = await fetchOnceMore(this.base + path, { method, headers, body, redirect: 'manual', signal: o.signal });
 		this.lastSetCookies = res.headers.getSetCookie();
 		for (const c of this.lastSetCookies) {
 			const m = c.match(new RegExp(`^${SESSION_COOKIE}=([^;]*)`));
