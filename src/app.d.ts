@@ -12,6 +12,11 @@ declare global {
 			requestId: string;
 			user: { id: string; email: string; name: string } | null;
 			session: { id: string; expiresAt: Date } | null;
+			/**
+			 * The signed-in user's role in each of their studios (studio id → role), read with the session
+			 * when the request began; absent where no session was read (the authz check then asks the database).
+			 */
+			roles?: { readonly userId: string; readonly byStudio: Readonly<Record<string, import('$lib/roles').Role>> };
 			/** Set when the database could not be reached while answering (answered 503). */
 			databaseUnavailable?: boolean;
 		}

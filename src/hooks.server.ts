@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { DATABASE_UNAVAILABLE_MESSAGE, errorIsDatabaseUnavailable } from '$lib/server/db/unavailable';
 import { handleApiShape } from '$lib/server/hooks/api-shape';
 import { handleAuthz, handleCrossSite } from '$lib/server/hooks/authz-gate';
+import { handleChangeSync } from '$lib/server/hooks/change-sync';
 import { handleDatabaseUnavailable } from '$lib/server/hooks/database-unavailable';
 import { handleRequestLog } from '$lib/server/hooks/request-log';
 import { handleSecurityHeaders } from '$lib/server/hooks/security-headers';
@@ -27,7 +28,8 @@ export const init: ServerInit = async () => {
 
 /**
  * Every request passes these, outermost first: its id and log line; the security headers; the API's
- * error shape; 503 while the database is away (around everything that may need it); the session; the
+ * error shape; 503 while the database is away (around everything that may need it); after a write, the
+ * wait for its change notices (so what this process keeps is never older than its own writes); the session; the
  * cross-site check of API writes; the authz table; then the route.
  */
 export const handle = sequence(
@@ -35,6 +37,7 @@ export const handle = sequence(
 	handleSecurityHeaders,
 	handleApiShape,
 	handleDatabaseUnavailable,
+	handleChangeSync,
 	handleSession,
 	handleCrossSite,
 	handleAuthz

@@ -32,6 +32,10 @@ interface Figures {
 	errors: number;
 	load: string;
 	appCpuS: number;
+	/** CPU seconds autocannon (this process) used in the phase */
+	benchCpuS: number;
+	/** CPU seconds the whole machine used in the phase (every process and the kernel) */
+	machineCpuS: number;
 }
 
 const loadavg = () => readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ');
@@ -42,11 +46,21 @@ function cpuSeconds(pid: number): number {
 	return (Number(fields[11]) + Number(fields[12])) / 100;
 }
 
+/** CPU seconds the whole machine has used so far (user, nice, system, irq, softirq of every core). */
+function machineCpuSeconds(): number {
+	const [, user, nice, system, , , irq, softirq] = readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).map(Number);
+	return (user + nice + system + irq + softirq) / 100;
+}
+
 async function phase(what: string, pid: number, opts: autocannon.Options, conflictsExpected = false): Promise<Figures> {
 	const before = loadavg();
 	const cpu0 = cpuSeconds(pid);
+	const machine0 = machineCpuSeconds();
+	const bench0 = process.cpuUsage();
 	const r = await autocannon({ duration: DURATION_S, ...opts });
 	const cpu = cpuSeconds(pid) - cpu0;
+	const machineCpuS = machineCpuSeconds() - machine0;
+	const bench = process.cpuUsage(bench0);
 	const codes = (r as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {};
 	const count = (pred: (code: number) => boolean) => Object.entries(codes).reduce((t, [c, v]) => t + (pred(Number(c)) ? v.count : 0), 0);
 	const ok = count((c) => c >= 200 && c < 300);
@@ -63,7 +77,9 @@ async function phase(what: string, pid: number, opts: autocannon.Options, confli
 		expected409,
 		errors: unexpected + r.errors + r.timeouts,
 		load: `${before} → ${loadavg()}`,
-		appCpuS: cpu
+		appCpuS: cpu,
+		benchCpuS: (bench.user + bench.system) / 1e6,
+		machineCpuS
 	};
 }
 
@@ -120,7 +136,7 @@ try {
 	);
 
 	const ms = (v: number) => `${v.toFixed(1)} ms`;
-	console.log(`\nnode ${process.version}, ${DURATION_S} s a phase, app CPU = seconds of CPU the app process used in the phase`);
+	console.log(`\nnode ${process.version}, ${DURATION_S} s a phase; CPU per request: the app process, this process (autocannon), the whole machine (the rest is PostgreSQL and the kernel)`);
 	console.table(
 		results.map((f) => ({
 			what: f.what,
@@ -132,7 +148,9 @@ try {
 			'2xx': f.ok,
 			'409 (expected)': f.expected409,
 			errors: f.errors,
-			'app CPU s': f.appCpuS.toFixed(1),
+			'app CPU ms/req': ((1000 * f.appCpuS) / f.total).toFixed(2),
+			'bench CPU ms/req': ((1000 * f.benchCpuS) / f.total).toFixed(2),
+			'machine CPU ms/req': ((1000 * f.machineCpuS) / f.total).toFixed(2),
 			'load average (1, 5, 15 min)': f.load
 		}))
 	);

@@ -217,7 +217,9 @@ function roleOf(locals: App.Locals, studioId: string, userId: string): Promise<R
 	if (!m) roleCache.set(locals, (m = new Map()));
 	let p = m.get(`${studioId}:${userId}`);
 	if (!p) {
-		p = membershipsRole(db(), studioId, userId);
+		// the roles read with the session (the same request's snapshot) spare a round trip
+		const known = locals.roles?.userId === userId ? locals.roles.byStudio : undefined;
+		p = known ? Promise.resolve(Object.hasOwn(known, studioId) ? known[studioId] : undefined) : membershipsRole(db(), studioId, userId);
 		m.set(`${studioId}:${userId}`, p);
 	}
 	return p;

@@ -1,3 +1,4 @@
+import { changeFeedStop } from './cache/change-feed';
 import { dbClose } from './db';
 import { log } from './log';
 import { rateLimitCleanupStop } from './rate-limit-cleanup';
@@ -12,6 +13,7 @@ export async function shutdownClose(reason: string): Promise<void> {
 	} catch (e) {
 		log.warn({ err: e }, 'the size-run queue did not stop cleanly');
 	}
+	await changeFeedStop();
 	try {
 		await dbClose();
 	} catch (e) {

@@ -9,7 +9,17 @@ import {
 	sessionsInsert,
 	sessionsWithUser
 } from '../repositories/sessions';
+import { keptReads } from '../cache/kept';
 import { sha256Hex } from './tokens';
+
+type SessionWithUser = NonNullable<Awaited<ReturnType<typeof sessionsWithUser>>>;
+
+/**
+ * Sessions read lately, with their user and roles, by hash: every request checks its session, and a
+ * kept one is forgotten as soon as the database says its session, user or memberships changed (a
+ * sign-out, a new role, an expiry moved; see cache/change-feed.ts), or after a minute regardless.
+ */
+const keptSessions = keptReads<SessionWithUser>({ max: 10_000, ttlMs: 60_000, kinds: ['user'], names: (row, _kind, userId) => row.user_id === userId });
 
 /**
  * lucia's storage, over Kysely. The database only ever sees SHA-256(session id): a leaked sessions
@@ -20,11 +30,12 @@ export class KyselySessionAdapter implements Adapter {
 	constructor(private readonly db: () => DbOrTx) {}
 
 	async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-		const row = await sessionsWithUser(this.db(), sha256Hex(sessionId));
+		const hash = sha256Hex(sessionId);
+		const row = await keptSessions.get(hash, () => sessionsWithUser(this.db(), hash));
 		if (!row) return [null, null];
 		return [
 			{ id: sessionId, userId: row.user_id, expiresAt: row.expires_at, attributes: {} },
-			{ id: row.user_id, attributes: { email: row.email, name: row.name } }
+			{ id: row.user_id, attributes: { email: row.email, name: row.name, roles: row.roles } }
 		];
 	}
 

@@ -1,6 +1,7 @@
 import type { Cookies } from '@sveltejs/kit';
 import { Lucia, TimeSpan } from 'lucia';
 import { db } from '../db';
+import type { Role } from '../db/schema';
 import { KyselySessionAdapter } from './adapter';
 
 export const lucia = new Lucia(new KyselySessionAdapter(db), {
@@ -9,14 +10,15 @@ export const lucia = new Lucia(new KyselySessionAdapter(db), {
 		name: 'dartelier_session',
 		attributes: { sameSite: 'lax', secure: true }
 	},
-	getUserAttributes: (a) => ({ email: a.email, name: a.name })
+	getUserAttributes: (a) => ({ email: a.email, name: a.name, roles: a.roles })
 });
 
 declare module 'lucia' {
 	interface Register {
 		Lucia: typeof lucia;
 		UserId: string;
-		DatabaseUserAttributes: { email: string; name: string };
+		/** `roles`: the user's role in each of their studios (studio id → role), read with the session */
+		DatabaseUserAttributes: { email: string; name: string; roles: Record<string, Role> };
 	}
 }
 

@@ -10,6 +10,7 @@ import { mutable, type Event } from './common';
 async function sessionLoad(event: Event): Promise<string | undefined> {
 	event.locals.user = null;
 	event.locals.session = null;
+	event.locals.roles = undefined;
 	const sessionId = event.cookies.get(lucia.sessionCookieName);
 	if (!sessionId) return undefined;
 	// A cookie that is not of the form lucia issues is dropped without a database round trip.
@@ -22,6 +23,7 @@ async function sessionLoad(event: Event): Promise<string | undefined> {
 	const { session, user } = valid;
 	event.locals.session = { id: session.id, expiresAt: session.expiresAt };
 	event.locals.user = { id: user.id, email: user.email, name: user.name };
+	event.locals.roles = { userId: user.id, byStudio: user.roles };
 	if (session.fresh) {
 		sessionCookieSet(event, session.id);
 		const c = lucia.createSessionCookie(session.id);

@@ -1,4 +1,6 @@
+import { sql } from 'kysely';
 import type { DbOrTx } from '../db';
+import type { Role } from '../db/schema';
 
 /** Sessions are stored by the SHA-256 of their id only; callers pass hashes, never raw ids. */
 export interface SessionRow {
@@ -11,6 +13,10 @@ export async function sessionsInsert(db: DbOrTx, row: SessionRow): Promise<void>
 	await db.insertInto('sessions').values(row).execute();
 }
 
+/**
+ * The session with its user and the user's role in each studio they belong to (studio id → role), in one
+ * round trip: every request checks the session, and most then ask for a role in one studio.
+ */
 export async function sessionsWithUser(db: DbOrTx, idHash: string) {
 	return db
 		.selectFrom('sessions')
@@ -20,7 +26,8 @@ export async function sessionsWithUser(db: DbOrTx, idHash: string) {
 			'sessions.user_id',
 			'sessions.expires_at',
 			'users.email',
-			'users.name'
+			'users.name',
+			sql<Record<string, Role>>`(select coalesce(json_object_agg(m.studio_id, m.role), '{}') from memberships m where m.user_id = users.id)`.as('roles')
 		])
 		.where('sessions.id_hash', '=', idHash)
 		.executeTakeFirst();

@@ -83,6 +83,38 @@ export async function versionsOfPiece(db: DbOrTx, pieceId: string, onlySignedOff
 	return q.orderBy('piece_versions.number', 'desc').execute();
 }
 
+/**
+ * versionsOfPiece with the piece's style, only when the piece is in the studio's styles: one round trip
+ * for the usual answer. An empty list is checked apart (a piece of another studio, or none by that id:
+ * `undefined` then).
+ */
+export async function versionsOfPieceInStudio(
+	db: DbOrTx,
+	studioId: string,
+	pieceId: string,
+	onlySignedOff = false
+): Promise<{ styleId: string; versions: VersionSummary[] } | undefined> {
+	let q = db
+		.selectFrom('piece_versions')
+		.innerJoin('pieces', 'pieces.id', 'piece_versions.piece_id')
+		.innerJoin('styles', 'styles.id', 'pieces.style_id')
+		.leftJoin('users', 'users.id', 'piece_versions.author_id')
+		.select([...summary, 'pieces.style_id as styleId'])
+		.where('piece_versions.piece_id', '=', pieceId)
+		.where('styles.studio_id', '=', studioId);
+	if (onlySignedOff) q = q.where('piece_versions.state', '=', 'signed_off');
+	const rows = await q.orderBy('piece_versions.number', 'desc').execute();
+	if (rows.length > 0) return { styleId: rows[0].styleId, versions: rows.map(({ styleId: _style, ...v }) => v) };
+	const piece = await db
+		.selectFrom('pieces')
+		.innerJoin('styles', 'styles.id', 'pieces.style_id')
+		.select('pieces.style_id as styleId')
+		.where('pieces.id', '=', pieceId)
+		.where('styles.studio_id', '=', studioId)
+		.executeTakeFirst();
+	return piece ? { styleId: piece.styleId, versions: [] } : undefined;
+}
+
 export async function versionsById(db: DbOrTx, pieceId: string, versionId: string): Promise<VersionRow | undefined> {
 	return db
 		.selectFrom('piece_versions')

@@ -6,7 +6,7 @@ import { db } from '$lib/server/db';
 import { stylesUpdate } from '$lib/server/repositories/styles';
 import { uuidSchema } from '$lib/server/validation';
 import { EDITORS, styleOr404 } from '$lib/server/versions/access';
-import { styleOverviewJson } from '$lib/server/versions/overview';
+import { styleOverviewJsonBytes } from '$lib/server/versions/overview';
 import { stylePatchSchema } from '$lib/server/versions/schemas';
 import type { RequestHandler } from './$types';
 
@@ -15,7 +15,7 @@ const params = z.object({ studioId: z.string(), styleId: uuidSchema });
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { studioId, role } = await requireRole(event, ALL_ROLES);
 	const { styleId } = parseParams(event.params, params);
-	return new Response(await styleOverviewJson(db(), studioId, styleId, role), { headers: { 'content-type': 'application/json' } });
+	return new Response(await styleOverviewJsonBytes(db(), studioId, styleId, role), { headers: { 'content-type': 'application/json' } });
 });
 
 export const PATCH: RequestHandler = apiRoute(async (event) => {

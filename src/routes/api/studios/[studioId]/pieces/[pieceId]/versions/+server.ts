@@ -4,9 +4,9 @@ import { apiRoute, parseParams, readJson } from '$lib/server/api';
 import { ALL_ROLES, requireRole } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { ApiError } from '$lib/server/http-errors';
-import { versionsOfPiece } from '$lib/server/repositories/versions';
 import { uuidSchema } from '$lib/server/validation';
-import { EDITORS, pieceOr404, seesOnlySignedOff } from '$lib/server/versions/access';
+import { EDITORS, seesOnlySignedOff } from '$lib/server/versions/access';
+import { versionListOfPiece } from '$lib/server/versions/version-list';
 import { versionSave } from '$lib/server/versions/save';
 import { saveRefusal } from '$lib/server/versions/save-response';
 import { VERSION_BODY_LIMIT_BYTES, VERSION_MAX_SEGMENTS, versionSaveSchema } from '$lib/server/versions/schemas';
@@ -17,9 +17,10 @@ const params = z.object({ studioId: z.string(), pieceId: uuidSchema });
 export const GET: RequestHandler = apiRoute(async (event) => {
 	const { studioId, role } = await requireRole(event, ALL_ROLES);
 	const { pieceId } = parseParams(event.params, params);
-	// side by side: the list is sent only when the piece is the studio's (404 otherwise)
-	const [, versions] = await Promise.all([pieceOr404(db(), studioId, pieceId), versionsOfPiece(db(), pieceId, seesOnlySignedOff(role))]);
-	return json({ versions });
+	// the list is sent only when the piece is the studio's (404 otherwise)
+	const found = await versionListOfPiece(db(), studioId, pieceId, seesOnlySignedOff(role));
+	if (!found) throw new ApiError(404, 'not_found', 'No such piece in this studio.');
+	return json({ versions: found.versions });
 });
 
 /** Saves a new version: verified and recomputed on the server (see $lib/server/versions/save). */
