@@ -39,7 +39,7 @@ describe('the style read as JSON text', () => {
 		const studio = await studioMake('Stamp');
 		const style = await stylesCreate(testDb(), { studioId: studio.id, name: 'Stamp test', createdBy: user.id });
 		const piece = await piecesCreate(testDb(), { styleId: style.id, name: 'Front', cut: 'pair' });
-		const v1 = await versionsInsert(testDb(), { pieceId: piece.id, number: 1, parentId: null, authorId: user.id, message: 'Drafted', geometry: source.geometry, recipe: [], metrics: source.metrics, checks: source.checks });
+		const v1 = await versionsInsert(testDb(), { pieceId: piece.id, number: 1, parentId: null, authorId: user.id, message: 'Drafted', geometry: source.geometry, recipe: [{ op: 'draft', params: { note: 'copied from the demo style' } }], metrics: source.metrics, checks: source.checks });
 		await piecesHeadSet(testDb(), piece.id, v1.id, 1);
 		const read = async (role: 'owner' | 'sampleroom') => JSON.parse(Buffer.from(await styleOverviewJsonBytes(testDb(), studio.id, style.id, role)).toString('utf8'));
 
@@ -49,7 +49,8 @@ describe('the style read as JSON text', () => {
 		// read again: the second answer comes from the kept text and is the same
 		expect(await read('owner')).toEqual(first);
 		// the version's geometry changed in place (as the demo's refresh of markings does), then signed off
-		const grainline = { from: { x: 7.5, y: 11.25 }, to: { x: 7.5, y: 311.25 } };
+		// the grainline moved, everything else of it as it was (the stored geometry stays a valid piece)
+		const grainline = { ...(source.geometry as { grainline: object }).grainline, from: { x: 7.5, y: 11.25 }, to: { x: 7.5, y: 311.25 } };
 		expect(first.pieces[0].shown.geometry.grainline).not.toEqual(grainline);
 		await versionsMarkingsSet(testDb(), v1.id, { ...(source.geometry as object), grainline });
 		// written here, not through a request of the app (which waits for this itself): the notice heard

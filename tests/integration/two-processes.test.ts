@@ -1,8 +1,9 @@
 // Beyond one machine (README): two processes of the BUILT app (`node build`) on two ports against one
 // database, as behind a load balancer. Checked: a session made by signing in on one is good on the other
-// (and signing out on the other ends it on both); the same save sent to both at once on one base is
-// stored once and refused 409 once; a size run queued through the first, whose queue worker is turned
-// off (DARTELIER_SIZE_RUN_WORKER=off), is done by the second's worker (its log names the run).
+// (and signing out on the other ends it on both, once the change notice is heard); the same save sent to
+// both at once on one base is stored once and refused 409 once, and the style read and version list both
+// processes kept show it; a size run queued through the first, whose queue worker is turned off
+// (DARTELIER_SIZE_RUN_WORKER=off), is done by the second's worker (its log names the run).
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { frontBodiceBlock } from '../../src/lib/pattern/fixtures/front-bodice-block';
 import { measurementChartsEnsure } from '../../src/lib/server/measurements/charts';
@@ -45,7 +46,10 @@ describe('two app processes on one database', () => {
 		expect(me.status).toBe(200);
 		expect((await me.json()).user.email).toBe(u.email);
 		expect((await onSecond.post('/signout', {})).status).toBe(303);
-		expect((await onFirst.api('GET', '/api/me')).status).toBe(401);
+		// the first kept the session it checked: the database's change notice makes it forget it, heard a
+		// moment after the sign-out committed (the second, which signed out, has heard it before answering)
+		expect((await onSecond.api('GET', '/api/me')).status).toBe(401);
+		await expect.poll(async () => (await onFirst.api('GET', '/api/me')).status, { timeout: 2000, interval: 20 }).toBe(401);
 	});
 
 	it('store one of two saves on the same base sent to both at once, and refuse the other 409', async () => {
@@ -64,6 +68,10 @@ describe('two app processes on one database', () => {
 		const pieceId = (await made.json()).piece.id as string;
 		const path = `/api/studios/${studio.id}/pieces/${pieceId}`;
 		const head = (await (await b.api('GET', path)).json()).shown;
+		for (const c of [a, b]) {
+			expect((await c.api('GET', `/api/studios/${studio.id}/styles/${style.style.id}`)).status).toBe(200);
+			expect((await c.api('GET', `${path}/versions`)).status).toBe(200);
+		}
 		const body = pivotSaveBody(head);
 		const answers = await Promise.all([a.api('POST', `${path}/versions`, body), b.api('POST', `${path}/versions`, body)]);
 		expect(answers.map((r) => r.status).sort()).toEqual([201, 409]);
@@ -76,6 +84,17 @@ describe('two app processes on one database', () => {
 			expect(now.shown.id).toBe(saved);
 			expect(now.versions).toHaveLength(2);
 		}
+		// the style read and the version list, kept by each process since they were read before the save,
+		// are read anew on both: at once on the one that stored it, a moment after on the other
+		const savedBy = answers[0].status === 201 ? a : b;
+		const other = savedBy === a ? b : a;
+		const headOf = async (c: Client) => {
+			const read = (await (await c.api('GET', `/api/studios/${studio.id}/styles/${style.style.id}`)).json()) as { pieces: { shown: { id: string } }[] };
+			const list = (await (await c.api('GET', `${path}/versions`)).json()) as { versions: { id: string }[] };
+			return `${read.pieces[0].shown.id} ${list.versions[0].id}`;
+		};
+		expect(await headOf(savedBy)).toBe(`${saved} ${saved}`);
+		await expect.poll(() => headOf(other), { timeout: 2000, interval: 20 }).toBe(`${saved} ${saved}`);
 	});
 
 	it('do a size run queued through the process without a worker on the other process', async () => {

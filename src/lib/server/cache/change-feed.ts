@@ -127,14 +127,26 @@ export function changeFeedOn(kind: ChangeKind, hear: Hearer): void {
 	hearers[kind].add(hear);
 }
 
+/** The sync query that callers arriving now share (sent once the one before it is answered). */
+let syncNext: Promise<void> | undefined;
+let syncLast: Promise<void> = Promise.resolve();
+
 /**
- * Resolves once every notice of a change committed before the call has been heard (a query on the
- * listening connection: PostgreSQL sends pending notices ahead of its answer).
+ * Resolves once every notice of a change committed before the call has been heard: a query on the
+ * listening connection, whose answer PostgreSQL sends after the notices pending for it. One such query
+ * at a time; callers that come while one is under way share the next.
  */
-export async function changeFeedSync(): Promise<void> {
+export function changeFeedSync(): Promise<void> {
 	const c = client;
-	if (!ready || !c) return;
-	await c.query('select 1').catch(() => undefined);
+	if (!ready || !c) return Promise.resolve();
+	if (!syncNext) {
+		syncNext = syncLast.then(async () => {
+			syncNext = undefined;
+			await c.query('select 1').catch(() => undefined);
+		});
+		syncLast = syncNext;
+	}
+	return syncNext;
 }
 
 /** On shutdown: stop listening, forget everything. */

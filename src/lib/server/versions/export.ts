@@ -3,10 +3,10 @@ import { pieceSvg, styleSvg, type SvgExportMeta } from '$lib/pattern/export/svg'
 import type { DbOrTx } from '../db';
 import type { Role } from '../db/schema';
 import { ApiError } from '../http-errors';
-import { piecesOfStyle } from '../repositories/pieces';
+import { piecesOfStyleWithShown } from '../repositories/pieces';
 import { measurementSetName } from '../repositories/measurement-set-names';
 import type { StyleRow } from '../repositories/styles';
-import { pieceOr404, styleOr404, versionOr404 } from './access';
+import { pieceOr404, seesOnlySignedOff, styleOr404, versionOr404 } from './access';
 import { versionShown } from './overview';
 
 const slug = (s: string) =>
@@ -44,8 +44,8 @@ export async function pieceSvgExport(db: DbOrTx, studioId: string, pieceId: stri
 export async function styleSvgExport(db: DbOrTx, studioId: string, styleId: string, role: Role) {
 	const style = await styleOr404(db, studioId, styleId);
 	const items = [];
-	for (const p of await piecesOfStyle(db, styleId)) {
-		const v = await versionShown(db, p.id, p.headVersionId, role);
+	for (const p of await piecesOfStyleWithShown(db, styleId, seesOnlySignedOff(role))) {
+		const v = p.shown;
 		if (v) items.push({ piece: { ...pieceSchema.parse(v.geometry), name: p.name, cut: p.cut }, meta: await metaOf(db, style, v.number) });
 	}
 	if (items.length === 0) throw new ApiError(404, 'not_found', 'This style has no pieces you can export yet.');
