@@ -94,8 +94,12 @@ function connect(): Promise<void> {
 	return connecting;
 }
 
+/** DARTELIER_KEPT_READS=off: this process keeps nothing and does not listen (every read asks the database). */
+const keptReadsOff = process.env.DARTELIER_KEPT_READS === 'off';
+
 /** Whether kept values may be used now; the first call starts listening (ready a moment later). */
 export function changeFeedReady(): boolean {
+	if (keptReadsOff) return false;
 	if (!ready && !stopped) void connect();
 	return ready;
 }
