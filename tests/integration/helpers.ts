@@ -159,6 +159,16 @@ function base32(bytes: Uint8Array): string {
 	return out;
 }
 
+/**
+ * A change written straight to the database (not through the app) reaches what the app keeps between
+ * requests by a change notice, heard a moment after the commit; a write request's answer waits until the
+ * app has heard every notice committed before it (src/lib/server/hooks/change-sync.ts), so after this
+ * the app at `base` answers from the database as it now is.
+ */
+export async function appHeardChanges(base: string): Promise<void> {
+	await fetch(`${base}/healthz`, { method: 'POST' });
+}
+
 /** A session made straight in the database (as lucia would: 25 random bytes, stored as SHA-256). */
 export async function sessionClient(base: string, userId: string): Promise<Client> {
 	const id = base32(randomBytes(25));

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { startApp, type RunningApp } from './app-server';
 import {
 	Client,
+	appHeardChanges,
 	PASSWORD,
 	SESSION_COOKIE,
 	memberAdd,
@@ -121,6 +122,7 @@ describe('sessions', () => {
 			.set({ expires_at: new Date(Date.now() - 60_000) })
 			.where('id_hash', '=', sha256(c.session!))
 			.execute();
+		await appHeardChanges(app.baseUrl);
 		const token = c.session!;
 		const r = await c.api('GET', '/api/me');
 		expect(r.status).toBe(401);
