@@ -3,6 +3,7 @@
 // commits, from any connection; a value read while such a change came in is not kept; after
 // changeFeedSync() (what every write request waits for) the notices of changes committed before have
 // been heard. Checked with a kept read of our own and with the sessions lucia reads.
+import { sql } from 'kysely';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { lucia } from '../../src/lib/server/auth/lucia';
 import { changeFeedReady, changeFeedSync } from '../../src/lib/server/cache/change-feed';
@@ -104,5 +105,33 @@ describe('kept reads and the change notices', () => {
 		await sessionsDelete(testDb(), sha256Hex(session.id));
 		await changeFeedSync();
 		expect((await lucia.validateSession(session.id)).session).toBeNull();
+	});
+
+	it('keep and use nothing while the listening connection is lost, and listen again by itself', async () => {
+		const style = await styleMade();
+		await changeFeedSync(); // the new style's own notices heard, so they do not cross the first read
+		const kept = keptReads<{ name: string }>({ max: 10, ttlMs: 60_000, kinds: ['style'], names: () => true });
+		let reads = 0;
+		const read = async () => {
+			reads++;
+			return { ...(await testDb().selectFrom('styles').select('name').where('id', '=', style.id).executeTakeFirstOrThrow()) };
+		};
+		await kept.get('l', read);
+		await kept.get('l', read);
+		expect(reads).toBe(1);
+		// the server ends the listening connection (as a restart or a dropped link would)
+		await sql`select pg_terminate_backend(pid) from pg_stat_activity where application_name = 'dartelier-change-feed'`.execute(testDb());
+		await expect.poll(() => changeFeedReady(), { timeout: 5000, interval: 5 }).toBe(false);
+		expect(kept.size).toBe(0);
+		// meanwhile every read asks the database and nothing is kept
+		await kept.get('l', read);
+		await kept.get('l', read);
+		expect(reads).toBe(3);
+		expect(kept.size).toBe(0);
+		// it listens again within a few seconds, and keeps again
+		await expect.poll(() => changeFeedReady(), { timeout: 10_000, interval: 50 }).toBe(true);
+		await kept.get('l', read);
+		await kept.get('l', read);
+		expect(reads).toBe(4);
 	});
 });

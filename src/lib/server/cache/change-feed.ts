@@ -25,6 +25,8 @@ let epoch = 0;
 let connecting: Promise<void> | undefined;
 let retryTimer: NodeJS.Timeout | undefined;
 let stopped = false;
+/** Whether the listening connection was ever lost (to log its return). */
+let everLost = false;
 const RETRY_MS = 1000;
 /** The latest notices heard, with the epoch each made (`*`: everything was forgotten then). */
 const recent: { epoch: number; kind: ChangeKind | '*'; id: string }[] = [];
@@ -44,9 +46,12 @@ function forgetAll(): void {
 function lost(c: pg.Client, err?: Error): void {
 	if (client !== c) return;
 	client = undefined;
+	const wasReady = ready;
+	if (wasReady) everLost = true;
 	ready = false;
 	forgetAll();
-	if (!stopped) log.warn({ err }, 'change notices lost: caches off until the database answers again');
+	// once per outage, not at every try to listen again
+	if (wasReady && !stopped) log.warn({ err }, 'change notices lost: nothing is kept until the database answers again');
 	c.end().catch(() => undefined);
 	if (!stopped && !retryTimer) {
 		retryTimer = setTimeout(() => {
@@ -65,7 +70,8 @@ function connect(): Promise<void> {
 	} catch {
 		return Promise.resolve(); // no database configured (a unit test): nothing is ever kept
 	}
-	const c = new pg.Client({ connectionString: url, keepAlive: true });
+	// named, so an operator sees it in pg_stat_activity
+	const c = new pg.Client({ connectionString: url, keepAlive: true, application_name: 'dartelier-change-feed' });
 	c.on('notification', (n) => {
 		const at = n.payload?.indexOf(':') ?? -1;
 		if (!n.payload || at < 0) return;
@@ -84,6 +90,7 @@ function connect(): Promise<void> {
 			client = c;
 			forgetAll();
 			ready = !stopped;
+			if (everLost && ready) log.info('change notices heard again: reads are kept again');
 		} catch (err) {
 			client = c;
 			lost(c, err as Error);
@@ -100,7 +107,7 @@ const keptReadsOff = process.env.DARTELIER_KEPT_READS === 'off';
 /** Whether kept values may be used now; the first call starts listening (ready a moment later). */
 export function changeFeedReady(): boolean {
 	if (keptReadsOff) return false;
-	if (!ready && !stopped) void connect();
+	if (!ready && !stopped && !retryTimer) void connect(); // after a loss: once a second, not at every request
 	return ready;
 }
 
