@@ -18,7 +18,8 @@ export interface SeamPairRow {
 	toleranceMm: number;
 }
 
-const columns = [
+/** The columns of a seam pair as this repository returns it (camelCase), for queries that read it elsewhere. */
+export const seamPairColumns = [
 	'id',
 	'style_id as styleId',
 	'label',
@@ -43,18 +44,18 @@ export async function seamPairsCreate(db: DbOrTx, p: Omit<SeamPairRow, 'id'>): P
 			allowed_ease_mm: p.allowedEaseMm,
 			tolerance_mm: p.toleranceMm
 		})
-		.returning(columns)
+		.returning(seamPairColumns)
 		.executeTakeFirstOrThrow() as Promise<SeamPairRow>;
 }
 
 export async function seamPairsOfStyle(db: DbOrTx, styleId: string): Promise<SeamPairRow[]> {
-	return db.selectFrom('seam_pairs').select(columns).where('style_id', '=', styleId).orderBy('created_at').execute() as Promise<
+	return db.selectFrom('seam_pairs').select(seamPairColumns).where('style_id', '=', styleId).orderBy('created_at').execute() as Promise<
 		SeamPairRow[]
 	>;
 }
 
 export async function seamPairsInStyle(db: DbOrTx, styleId: string, seamPairId: string): Promise<SeamPairRow | undefined> {
-	return db.selectFrom('seam_pairs').select(columns).where('style_id', '=', styleId).where('id', '=', seamPairId).executeTakeFirst() as Promise<
+	return db.selectFrom('seam_pairs').select(seamPairColumns).where('style_id', '=', styleId).where('id', '=', seamPairId).executeTakeFirst() as Promise<
 		SeamPairRow | undefined
 	>;
 }
@@ -74,7 +75,7 @@ export async function seamPairsUpdate(
 			...(patch.toleranceMm !== undefined ? { tolerance_mm: patch.toleranceMm } : {})
 		})
 		.where('id', '=', seamPairId)
-		.returning(columns)
+		.returning(seamPairColumns)
 		.executeTakeFirst() as Promise<SeamPairRow | undefined>;
 }
 

@@ -1,8 +1,10 @@
 import { sql } from 'kysely';
+import { jsonArrayFrom } from 'kysely/helpers/postgres';
 import type { DbOrTx } from '../db';
 import type { VersionState } from '../db/schema';
 import type { PieceRow } from './pieces';
-import type { StyleRow } from './styles';
+import { seamPairColumns, type SeamPairRow } from './seam-pairs';
+import { styleColumns, type StyleRow } from './styles';
 
 /**
  * A piece with the version it is shown at, named but not carried: the version's `stamp` is its row's
@@ -14,14 +16,10 @@ export interface PieceWithShownStamp extends PieceRow {
 	vStamp: string | null;
 }
 
-/**
- * The style, and as JSON text (not parsed) its pieces (PieceWithShownStamp[]) and seam pairs
- * (SeamPairRow[]): what the style read needs to know whether it has answered the same before.
- */
 export interface StyleOverviewRows {
 	style: StyleRow;
-	piecesText: string;
-	seamPairsText: string;
+	pieces: PieceWithShownStamp[];
+	seamPairs: SeamPairRow[];
 }
 
 /**
@@ -31,28 +29,26 @@ export interface StyleOverviewRows {
  */
 export async function styleOverviewRows(db: DbOrTx, studioId: string, styleId: string, onlySignedOff: boolean): Promise<StyleOverviewRows | undefined> {
 	const which = onlySignedOff ? sql`v.state = 'signed_off' order by v.number desc limit 1` : sql`v.id = p.head_version_id`;
-	const r = await sql<StyleRow & { piecesText: string; seamPairsText: string }>`
-		select st.id, st.studio_id as "studioId", st.name, st.code, st.season, st.notes,
-			st.measurement_set_id as "measurementSetId", st.status, st.created_at as "createdAt",
-			(select coalesce(json_agg(x order by x."sortOrder", x.name), '[]') from (
+	const row = await db
+		.selectFrom('styles')
+		.select(styleColumns)
+		.select((eb) => [
+			sql<PieceWithShownStamp[]>`(select coalesce(json_agg(x order by x."sortOrder", x.name), '[]') from (
 				select p.id, p.style_id as "styleId", p.name, p.cut, p.fabric, p.sort_order as "sortOrder",
 					p.head_version_id as "headVersionId", p.head_number as "headNumber",
 					s.id as "vId", s.xmin::text as "vStamp"
 				from pieces p
 				left join lateral (select v.id, v.xmin from piece_versions v where v.piece_id = p.id and ${which}) s on true
-				where p.style_id = st.id
-			) x)::text as "piecesText",
-			(select coalesce(json_agg(json_build_object(
-				'id', sp.id, 'styleId', sp.style_id, 'label', sp.label,
-				'aPieceId', sp.a_piece_id, 'aEdge', sp.a_edge, 'bPieceId', sp.b_piece_id, 'bEdge', sp.b_edge,
-				'allowedEaseMm', sp.allowed_ease_mm, 'toleranceMm', sp.tolerance_mm
-			) order by sp.created_at), '[]') from seam_pairs sp where sp.style_id = st.id)::text as "seamPairsText"
-		from styles st
-		where st.id = ${styleId} and st.studio_id = ${studioId}`.execute(db);
-	const row = r.rows[0];
+				where p.style_id = styles.id
+			) x)`.as('pieces'),
+			jsonArrayFrom(eb.selectFrom('seam_pairs').select(seamPairColumns).whereRef('seam_pairs.style_id', '=', 'styles.id').orderBy('seam_pairs.created_at')).as('seamPairs')
+		])
+		.where('styles.id', '=', styleId)
+		.where('styles.studio_id', '=', studioId)
+		.executeTakeFirst();
 	if (!row) return undefined;
-	const { piecesText, seamPairsText, ...style } = row;
-	return { style, piecesText, seamPairsText };
+	const { pieces, seamPairs, ...style } = row;
+	return { style, pieces, seamPairs: seamPairs as unknown as SeamPairRow[] };
 }
 
 /** A version as the style read shows it, its JSON columns as the database writes them (text, not parsed). */

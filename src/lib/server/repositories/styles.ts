@@ -13,7 +13,8 @@ export interface StyleRow {
 	createdAt: Date;
 }
 
-const columns = [
+/** The columns of a style as this repository returns it (camelCase), for queries that read it elsewhere. */
+export const styleColumns = [
 	'id',
 	'studio_id as studioId',
 	'name',
@@ -40,14 +41,14 @@ export async function stylesCreate(
 			measurement_set_id: input.measurementSetId ?? null,
 			created_by: input.createdBy
 		})
-		.returning(columns)
+		.returning(styleColumns)
 		.executeTakeFirstOrThrow();
 }
 
 export async function stylesOfStudio(db: DbOrTx, studioId: string): Promise<(StyleRow & { pieceCount: number })[]> {
 	return db
 		.selectFrom('styles')
-		.select(columns)
+		.select(styleColumns)
 		.select((eb) =>
 			eb
 				.selectFrom('pieces')
@@ -62,7 +63,7 @@ export async function stylesOfStudio(db: DbOrTx, studioId: string): Promise<(Sty
 
 /** The style, only if it belongs to the studio (another studio's style is "not found"). */
 export async function stylesInStudio(db: DbOrTx, studioId: string, styleId: string): Promise<StyleRow | undefined> {
-	return db.selectFrom('styles').select(columns).where('id', '=', styleId).where('studio_id', '=', studioId).executeTakeFirst();
+	return db.selectFrom('styles').select(styleColumns).where('id', '=', styleId).where('studio_id', '=', studioId).executeTakeFirst();
 }
 
 export async function stylesUpdate(
@@ -70,5 +71,5 @@ export async function stylesUpdate(
 	styleId: string,
 	patch: Partial<Pick<StyleRow, 'name' | 'code' | 'season' | 'notes' | 'status'>>
 ): Promise<StyleRow | undefined> {
-	return db.updateTable('styles').set(patch).where('id', '=', styleId).returning(columns).executeTakeFirst();
+	return db.updateTable('styles').set(patch).where('id', '=', styleId).returning(styleColumns).executeTakeFirst();
 }

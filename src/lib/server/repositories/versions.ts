@@ -1,5 +1,6 @@
 import type { DbOrTx } from '../db';
 import { authorName } from './former-member';
+import { piecesInStudio } from './pieces';
 import type { VersionState } from '../db/schema';
 
 export interface VersionSummary {
@@ -105,13 +106,7 @@ export async function versionsOfPieceInStudio(
 	if (onlySignedOff) q = q.where('piece_versions.state', '=', 'signed_off');
 	const rows = await q.orderBy('piece_versions.number', 'desc').execute();
 	if (rows.length > 0) return { styleId: rows[0].styleId, versions: rows.map(({ styleId: _style, ...v }) => v) };
-	const piece = await db
-		.selectFrom('pieces')
-		.innerJoin('styles', 'styles.id', 'pieces.style_id')
-		.select('pieces.style_id as styleId')
-		.where('pieces.id', '=', pieceId)
-		.where('styles.studio_id', '=', studioId)
-		.executeTakeFirst();
+	const piece = await piecesInStudio(db, studioId, pieceId);
 	return piece ? { styleId: piece.styleId, versions: [] } : undefined;
 }
 

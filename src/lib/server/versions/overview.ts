@@ -5,7 +5,7 @@ import { ApiError } from '../http-errors';
 import { piecesOfStyleWithShown } from '../repositories/pieces';
 import { seamPairsOfStyle } from '../repositories/seam-pairs';
 import { keptReads } from '../cache/kept';
-import { styleOverviewRows, type PieceWithShownStamp, type StyleOverviewRows } from '../repositories/style-overview';
+import { styleOverviewRows, type StyleOverviewRows } from '../repositories/style-overview';
 import { versionsById, versionsOfPiece, type VersionRow, type VersionSummary } from '../repositories/versions';
 import { pieceOr404, seesOnlySignedOff, styleOr404 } from './access';
 import { versionsShownJson } from './style-read-cache';
@@ -59,13 +59,13 @@ export async function styleOverviewJsonBytes(db: DbOrTx, studioId: string, style
 	if (!found) throw new ApiError(404, 'not_found', 'No such style in this studio.');
 	const made = answers.get(found);
 	if (made) return made;
-	const rows = (JSON.parse(found.piecesText) as PieceWithShownStamp[]).filter((r) => r.vId !== null || !onlySignedOff);
+	const rows = found.pieces.filter((r) => r.vId !== null || !onlySignedOff);
 	const shown = await versionsShownJson(
 		db,
 		rows.flatMap((r) => (r.vId !== null && r.vStamp !== null ? [{ id: r.vId, stamp: r.vStamp }] : []))
 	);
 	const pieces = rows.map(({ vId, vStamp: _stamp, ...piece }) => `${JSON.stringify(piece).slice(0, -1)},"shown":${(vId !== null && shown.get(vId)) || 'null'}}`);
-	const answer = Buffer.from(`{"style":${JSON.stringify(found.style)},"pieces":[${pieces.join(',')}],"seamPairs":${found.seamPairsText}}`);
+	const answer = Buffer.from(`{"style":${JSON.stringify(found.style)},"pieces":[${pieces.join(',')}],"seamPairs":${JSON.stringify(found.seamPairs)}}`);
 	if (answer.byteLength <= answers.maxSize / 4) answers.set(found, answer);
 	return answer;
 }
